@@ -1,0 +1,113 @@
+#!/usr/bin/env bash
+# Shared set-up for `npm start` and `npm test`: dependencies, a project-local PostgreSQL on
+# loopback (unless DATABASE_URL points elsewhere), and the JWT secret. Sourced, not run.
+set -euo pipefail
+
+ROOT=$(cd "$(dirname "${BASH_SOURCE[0]}")/../.." && pwd)
+PG_BIN=${PG_BIN:-/usr/lib/postgresql/15/bin}
+DATA_ROOT="$ROOT/.data"
+mkdir -p "$DATA_ROOT"
+
+log() { printf '\033[36m[gridcue]\033[0m %s\n' "$*"; }
+die() { printf '\033[31m[gridcue] %s\033[0m\n' "$*" >&2; exit 1; }
+
+# npm ci only when node_modules is missing or older than the lock file, so a warm start skips it.
+ensure_dependencies() {
+  local stamp="$ROOT/node_modules/.gridcue-installed"
+  if [ ! -f "$stamp" ] || [ "$ROOT/package-lock.json" -nt "$stamp" ]; then
+    log "installing dependencies (npm ci)…"
+    (cd "$ROOT" && npm ci --no-audit --no-fund --loglevel=error)
+    touch "$stamp"
+  fi
+}
+
+apt_install() {
+  [ "$(id -u)" = 0 ] || die "$1 is missing. Install it first: sudo apt-get install -y $2"
+  log "installing $2 from Debian's packages…"
+  DEBIAN_FRONTEND=noninteractive apt-get update -qq
+  DEBIAN_FRONTEND=noninteractive apt-get install -y -qq "$2" >/dev/null
+}
+
+ensure_postgres_binaries() {
+  [ -x "$PG_BIN/initdb" ] || apt_install "PostgreSQL (initdb)" postgresql
+  [ -x "$PG_BIN/initdb" ] || die "PostgreSQL binaries not found in $PG_BIN (set PG_BIN)"
+}
+
+# Runs a PostgreSQL server tool as the user that owns the cluster (PostgreSQL refuses root).
+as_pg_user() {
+  if [ "$(id -u)" = 0 ]; then runuser -u postgres -- "$@"; else "$@"; fi
+}
+
+# The cluster lives in .data/ unless the postgres user cannot reach the checkout (e.g. under /root
+# or a mode-700 temp folder); then it moves to a /var/tmp folder named after the checkout.
+cluster_dir() {
+  local name=$1 dir="$DATA_ROOT/$1"
+  if [ "$(id -u)" = 0 ] && ! runuser -u postgres -- test -x "$DATA_ROOT"; then
+    local hash
+    hash=$(printf '%s' "$ROOT" | sha1sum | cut -c1-10)
+    dir="/var/tmp/gridcue-pg-$hash/$name"
+  fi
+  printf '%s' "$dir"
+}
+
+# ensure_cluster NAME PORT [throwaway]: initialise once, start if not running, print nothing else.
+ensure_cluster() {
+  local name=$1 port=$2 throwaway=${3:-}
+  ensure_postgres_binaries
+  local dir
+  dir=$(cluster_dir "$name")
+  if [ ! -f "$dir/PG_VERSION" ]; then
+    log "creating PostgreSQL cluster in $dir"
+    mkdir -p "$dir"
+    [ "$(id -u)" = 0 ] && chown -R postgres:postgres "$(dirname "$dir")"
+    chmod 700 "$dir"
+    as_pg_user "$PG_BIN/initdb" -D "$dir" -U postgres --auth=trust --encoding=UTF8 --locale=C.UTF-8 >/dev/null
+    {
+      echo "listen_addresses = '127.0.0.1'"
+      echo "unix_socket_directories = ''"
+      if [ "$throwaway" = throwaway ]; then
+        # test data is recreated on every run, so durability only costs time here
+        echo "fsync = off"; echo "synchronous_commit = off"; echo "full_page_writes = off"
+      fi
+    } >>"$dir/postgresql.conf"
+  fi
+  if as_pg_user "$PG_BIN/pg_ctl" -D "$dir" status >/dev/null 2>&1; then
+    log "PostgreSQL ($name) already running on 127.0.0.1:$port"
+  else
+    if "$PG_BIN/pg_isready" -q -h 127.0.0.1 -p "$port" 2>/dev/null; then
+      die "port $port is taken by another server; set GRIDCUE_PG_PORT to a free port or DATABASE_URL to use that server"
+    fi
+    log "starting PostgreSQL ($name) on 127.0.0.1:$port"
+    as_pg_user "$PG_BIN/pg_ctl" -D "$dir" -l "$dir/server.log" -o "-p $port" -w -t 60 start >/dev/null \
+      || die "PostgreSQL did not start; see $dir/server.log"
+  fi
+  CLUSTER_DIR=$dir
+}
+
+stop_cluster() {
+  local dir=$1
+  as_pg_user "$PG_BIN/pg_ctl" -D "$dir" -m fast -w stop >/dev/null 2>&1 || true
+}
+
+ensure_database() {
+  local port=$1 db=$2
+  if ! "$PG_BIN/psql" -h 127.0.0.1 -p "$port" -U postgres -tAc "select 1 from pg_database where datname='$db'" | grep -q 1; then
+    "$PG_BIN/createdb" -h 127.0.0.1 -p "$port" -U postgres "$db"
+  fi
+}
+
+recreate_database() {
+  local port=$1 db=$2
+  "$PG_BIN/dropdb" -h 127.0.0.1 -p "$port" -U postgres --if-exists --force "$db"
+  "$PG_BIN/createdb" -h 127.0.0.1 -p "$port" -U postgres "$db"
+}
+
+# A random secret made once per checkout, so tokens survive restarts but never ship in git.
+ensure_jwt_secret() {
+  local file="$DATA_ROOT/jwt-secret"
+  [ -s "$file" ] || { head -c 48 /dev/urandom | base64 | tr -d '\n=' >"$file"; chmod 600 "$file"; }
+  JWT_SECRET=${JWT_SECRET:-$(cat "$file")}
+  export JWT_SECRET
+}
+
+run_tsx() { (cd "$ROOT" && node --import tsx "$@"); }

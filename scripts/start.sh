@@ -1,0 +1,37 @@
+#!/usr/bin/env bash
+# `npm start`: dependencies, PostgreSQL on loopback (or DATABASE_URL), migrations, demo seed, client build, server.
+source "$(dirname "$0")/lib/setup.sh"
+
+PG_PORT=${GRIDCUE_PG_PORT:-5433}
+ensure_dependencies
+ensure_jwt_secret
+
+STARTED_CLUSTER=
+if [ -z "${DATABASE_URL:-}" ]; then
+  ensure_cluster main "$PG_PORT"
+  STARTED_CLUSTER=$CLUSTER_DIR
+  ensure_database "$PG_PORT" gridcue
+  export DATABASE_URL="postgres://postgres@127.0.0.1:$PG_PORT/gridcue"
+else
+  log "using the database at DATABASE_URL; starting no PostgreSQL"
+fi
+
+run_tsx scripts/migrate.ts --seed
+
+# Rebuild the client only when a source file is newer than the last build.
+if [ ! -f "$ROOT/dist/index.html" ] || [ -n "$(find "$ROOT/src" "$ROOT/shared" "$ROOT/index.html" "$ROOT/vite.config.ts" -newer "$ROOT/dist/index.html" -print -quit)" ]; then
+  log "building the client…"
+  (cd "$ROOT" && npx vite build --logLevel warn)
+fi
+
+stop() {
+  [ -n "${SERVER_PID:-}" ] && kill "$SERVER_PID" 2>/dev/null && wait "$SERVER_PID" 2>/dev/null
+  [ -n "$STARTED_CLUSTER" ] && { log "stopping PostgreSQL"; stop_cluster "$STARTED_CLUSTER"; }
+  exit 0
+}
+trap stop INT TERM
+export NODE_ENV=${NODE_ENV:-production}
+(cd "$ROOT" && exec node --import tsx server/index.ts) &
+SERVER_PID=$!
+wait "$SERVER_PID"
+stop

@@ -1,0 +1,45 @@
+import { existsSync } from 'node:fs'
+import { fileURLToPath } from 'node:url'
+import express, { type Express } from 'express'
+import helmet from 'helmet'
+import { pinoHttp } from 'pino-http'
+import { createPassport } from './auth/passport'
+import type { Config } from './config'
+import type { Db } from './db/knex'
+import { createLogger, type AppLogger } from './logger'
+import { errorHandler, unknownRoute } from './middleware/error-handler'
+import { authRoutes } from './routes/auth'
+import { channelRoutes } from './routes/channels'
+
+export interface AppDeps {
+  db: Db
+  config: Config
+  logger?: AppLogger
+  /** folder with the built client; served with a fallback to index.html for client-side routes */
+  clientDir?: string
+}
+
+const DEFAULT_CLIENT_DIR = fileURLToPath(new URL('../dist', import.meta.url))
+
+/** Builds the Express app without listening, so tests can drive it with supertest. */
+export function createApp({ db, config, logger, clientDir = DEFAULT_CLIENT_DIR }: AppDeps): Express {
+  const app = express()
+  const passport = createPassport(db, config.auth.jwtSecret)
+
+  app.disable('x-powered-by')
+  app.use(helmet())
+  app.use(pinoHttp({ logger: logger ?? createLogger(config.log.level), autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }))
+  app.use(express.json({ limit: '1mb' }))
+
+  app.use('/api/auth', authRoutes(db, config, passport))
+  app.use('/api/channels', channelRoutes(db, passport))
+  app.use('/api', unknownRoute)
+
+  if (existsSync(clientDir)) {
+    app.use(express.static(clientDir, { index: false, maxAge: '1h' }))
+    app.get('/{*splat}', (_req, res) => res.sendFile('index.html', { root: clientDir }))
+  }
+  app.use(unknownRoute)
+  app.use(errorHandler)
+  return app
+}

@@ -1,0 +1,24 @@
+import type { RequestHandler } from 'express'
+import type { Role } from '../../shared/schemas/auth'
+import type { Db } from '../db/knex'
+import { findRole } from '../db/memberships'
+import { forbidden, HttpError, notFound } from '../errors'
+
+export const ALL_ROLES: readonly Role[] = ['owner', 'presenter', 'editor', 'viewer']
+
+/**
+ * Allows the request when the signed-in user holds one of `roles` in the channel named by `:channelId`.
+ * Non-members get 404, so a channel's existence is not revealed; members with another role get 403.
+ */
+export function requireRole(db: Db, roles: readonly Role[]): RequestHandler {
+  return async (req, res, next) => {
+    const channelId = Number(req.params.channelId)
+    if (!Number.isInteger(channelId) || channelId <= 0) throw new HttpError(400, 'invalid-input', 'Channel id must be a positive whole number')
+    if (!req.user) throw new HttpError(401, 'unauthenticated', 'Please sign in first.')
+    const role = await findRole(db, req.user.id, channelId)
+    if (!role) throw notFound('Channel')
+    if (!roles.includes(role)) throw forbidden(`Your role in this channel (${role}) does not allow this`)
+    res.locals.role = role
+    next()
+  }
+}

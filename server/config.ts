@@ -1,0 +1,44 @@
+import { z } from 'zod'
+
+const envSchema = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+  HOST: z.string().default('127.0.0.1'),
+  PORT: z.coerce.number().int().min(0).max(65535).default(5180),
+  DATABASE_URL: z
+    .string({ message: 'DATABASE_URL is required (npm start sets it; or point it at your PostgreSQL)' })
+    .regex(/^postgres(ql)?:\/\//, { message: 'DATABASE_URL must start with postgres:// or postgresql://' }),
+  JWT_SECRET: z.string({ message: 'JWT_SECRET is required' }).min(32, { message: 'JWT_SECRET must be at least 32 characters' }),
+  JWT_EXPIRES_IN_SECONDS: z.coerce.number().int().min(60).max(30 * 24 * 3600).default(12 * 3600),
+  SIGN_IN_ATTEMPTS_PER_15_MIN: z.coerce.number().int().min(1).default(10),
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).optional(),
+})
+
+export type Config = ReturnType<typeof loadConfig>
+
+/** Reads and validates the environment once; throws with every problem listed. */
+export function loadConfig(env: NodeJS.ProcessEnv = process.env) {
+  const parsed = envSchema.safeParse(env)
+  if (!parsed.success) {
+    const problems = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`).join('\n')
+    throw new Error(`Invalid configuration:\n${problems}`)
+  }
+  const e = parsed.data
+  return Object.freeze({
+    env: e.NODE_ENV,
+    http: { host: e.HOST, port: e.PORT },
+    db: { url: e.DATABASE_URL },
+    auth: {
+      jwtSecret: e.JWT_SECRET,
+      tokenTtlSeconds: e.JWT_EXPIRES_IN_SECONDS,
+      signInAttemptsPer15Min: e.SIGN_IN_ATTEMPTS_PER_15_MIN,
+    },
+    log: { level: e.LOG_LEVEL ?? (e.NODE_ENV === 'test' ? 'silent' : 'info') },
+  })
+}
+
+/** Only the database address, for tools (migrations, seeds) that need nothing else. */
+export function databaseUrl(env: NodeJS.ProcessEnv = process.env): string {
+  const url = envSchema.shape.DATABASE_URL.safeParse(env.DATABASE_URL)
+  if (!url.success) throw new Error(`Invalid configuration: DATABASE_URL: ${url.error.issues[0]?.message}`)
+  return url.data
+}

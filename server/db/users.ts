@@ -1,0 +1,15 @@
+import type { Db } from './knex'
+import type { UserRow } from './tables'
+
+export function findUserByEmail(db: Db, email: string): Promise<UserRow | undefined> {
+  return db('users').whereRaw('lower(email) = lower(?)', [email]).first()
+}
+
+export function findUserById(db: Db, id: number): Promise<UserRow | undefined> {
+  return db('users').where({ id }).first()
+}
+
+export async function insertUser(db: Db, user: Pick<UserRow, 'email' | 'name' | 'password_hash'>): Promise<UserRow> {
+  const [row] = await db('users').insert(user).returning('*')
+  return row as UserRow
+}

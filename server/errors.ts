@@ -1,0 +1,17 @@
+/** An error meant for the API caller: its status, a stable code and a message a person understands. */
+export class HttpError extends Error {
+  readonly isOperational = true
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly details?: unknown,
+  ) {
+    super(message)
+    this.name = 'HttpError'
+  }
+}
+
+export const notFound = (what: string) => new HttpError(404, 'not-found', `${what} not found`)
+export const forbidden = (message = 'Your role in this channel does not allow this') =>
+  new HttpError(403, 'forbidden', message)

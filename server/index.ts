@@ -1,0 +1,36 @@
+import { createApp } from './app'
+import { loadConfig } from './config'
+import { createDb } from './db/knex'
+import { createLogger } from './logger'
+
+let config
+try {
+  config = loadConfig()
+} catch (error) {
+  console.error((error as Error).message)
+  process.exit(1)
+}
+
+const logger = createLogger(config.log.level)
+const db = createDb(config.db.url)
+const app = createApp({ db, config, logger })
+
+const server = app.listen(config.http.port, config.http.host, () => {
+  const address = server.address()
+  const port = typeof address === 'object' && address ? address.port : config.http.port
+  console.log(`\n  Gridcue is running at http://${config.http.host}:${port}/\n`)
+})
+server.on('error', (error) => {
+  logger.fatal({ err: error }, 'could not start the server')
+  process.exit(1)
+})
+
+async function shutdown(signal: string) {
+  logger.info({ signal }, 'shutting down')
+  server.close()
+  await db.destroy()
+  process.exit(0)
+}
+process.on('SIGINT', () => void shutdown('SIGINT'))
+process.on('SIGTERM', () => void shutdown('SIGTERM'))
+process.on('unhandledRejection', (reason) => logger.error({ err: reason }, 'unhandled rejection'))

@@ -1,0 +1,23 @@
+import { describe, expect, it } from 'vitest'
+import { loadConfig } from '../../server/config'
+
+const base = { DATABASE_URL: 'postgres://u@127.0.0.1:5432/db', JWT_SECRET: 'k'.repeat(32) }
+
+describe('loadConfig', () => {
+  it('should build a frozen config with defaults', () => {
+    const config = loadConfig(base)
+    expect(config.http).toEqual({ host: '127.0.0.1', port: 5180 })
+    expect(Object.isFrozen(config)).toBe(true)
+  })
+
+  it('should fail fast naming every bad value', () => {
+    expect(() => loadConfig({ ...base, PORT: 'eighty', JWT_SECRET: 'short' })).toThrow(
+      /PORT: .*\n.*JWT_SECRET: JWT_SECRET must be at least 32 characters/s,
+    )
+  })
+
+  it('should explain a missing or foreign database address', () => {
+    expect(() => loadConfig({ JWT_SECRET: base.JWT_SECRET })).toThrow(/DATABASE_URL is required/)
+    expect(() => loadConfig({ ...base, DATABASE_URL: 'mysql://x' })).toThrow(/must start with postgres:\/\//)
+  })
+})

@@ -1,0 +1,38 @@
+import { fileURLToPath, URL } from 'node:url'
+import { defineConfig } from 'vitest/config'
+import vue from '@vitejs/plugin-vue'
+import Components from 'unplugin-vue-components/vite'
+import { PrimeVueResolver } from '@primevue/auto-import-resolver'
+
+const alias = {
+  '@': fileURLToPath(new URL('./src', import.meta.url)),
+  '@shared': fileURLToPath(new URL('./shared', import.meta.url)),
+}
+
+export default defineConfig({
+  plugins: [vue(), Components({ dts: false, resolvers: [PrimeVueResolver()] })],
+  resolve: { alias },
+  server: { proxy: { '/api': 'http://127.0.0.1:5180' } },
+  build: { outDir: 'dist', chunkSizeWarningLimit: 800 },
+  test: {
+    projects: [
+      {
+        extends: true,
+        test: { name: 'shared', include: ['tests/shared/**/*.test.ts'], environment: 'node' },
+      },
+      {
+        extends: true,
+        // API tests share one PostgreSQL database, so files run one after another
+        test: { name: 'server', include: ['tests/server/**/*.test.ts'], environment: 'node', execArgv: ['--import', 'tsx'], fileParallelism: false, testTimeout: 20_000, hookTimeout: 60_000 },
+      },
+      {
+        extends: true,
+        test: { name: 'client', include: ['tests/client/**/*.test.ts'], environment: 'happy-dom' },
+      },
+      {
+        extends: true,
+        test: { name: 'e2e', include: ['tests/e2e/**/*.test.ts'], environment: 'node', fileParallelism: false, testTimeout: 90_000, hookTimeout: 120_000 },
+      },
+    ],
+  },
+})
