@@ -31,7 +31,7 @@ export default defineConfig({
       },
       {
         extends: true,
-        test: { name: 'e2e', include: ['tests/e2e/**/*.test.ts'], environment: 'node', fileParallelism: false, testTimeout: 90_000, hookTimeout: 120_000 },
+        test: { name: 'e2e', include: ['tests/e2e/**/*.test.ts'], environment: 'node', execArgv: ['--import', 'tsx'], fileParallelism: false, testTimeout: 90_000, hookTimeout: 120_000 },
       },
     ],
   },

@@ -10,11 +10,16 @@ import { createLogger, type AppLogger } from './logger'
 import { errorHandler, unknownRoute } from './middleware/error-handler'
 import { authRoutes } from './routes/auth'
 import { channelRoutes } from './routes/channels'
+import { outlineRoutes } from './routes/outlines'
+import { puzzleRoutes } from './routes/puzzles'
+import { createEnginePool, type EnginePool } from './workers/engine-pool'
 
 export interface AppDeps {
   db: Db
   config: Config
   logger?: AppLogger
+  /** the engine's worker pool; whoever creates it destroys it on shutdown (threads start on first use) */
+  engine?: EnginePool
   /** folder with the built client; served with a fallback to index.html for client-side routes */
   clientDir?: string
 }
@@ -22,8 +27,9 @@ export interface AppDeps {
 const DEFAULT_CLIENT_DIR = fileURLToPath(new URL('../dist', import.meta.url))
 
 /** Builds the Express app without listening, so tests can drive it with supertest. */
-export function createApp({ db, config, logger, clientDir = DEFAULT_CLIENT_DIR }: AppDeps): Express {
+export function createApp({ db, config, logger, engine, clientDir = DEFAULT_CLIENT_DIR }: AppDeps): Express {
   const app = express()
+  engine ??= createEnginePool({ ...config.engine, logger })
   const passport = createPassport(db, config.auth.jwtSecret)
 
   app.disable('x-powered-by')
@@ -32,6 +38,9 @@ export function createApp({ db, config, logger, clientDir = DEFAULT_CLIENT_DIR }
   app.use(express.json({ limit: '1mb' }))
 
   app.use('/api/auth', authRoutes(db, config, passport))
+  // before the channel router, whose router-wide requireUser would otherwise check every token twice
+  app.use('/api/channels/:channelId/puzzles', puzzleRoutes(db, passport, engine))
+  app.use('/api/channels/:channelId', outlineRoutes(db, passport, engine))
   app.use('/api/channels', channelRoutes(db, passport))
   app.use('/api', unknownRoute)
 

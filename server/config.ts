@@ -1,4 +1,8 @@
+import { availableParallelism } from 'node:os'
 import { z } from 'zod'
+
+// leave one core for the request thread; more than four engine threads only queue on PostgreSQL
+const DEFAULT_ENGINE_THREADS = Math.max(1, Math.min(4, availableParallelism() - 1))
 
 const envSchema = z.object({
   NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
@@ -10,6 +14,8 @@ const envSchema = z.object({
   JWT_SECRET: z.string({ message: 'JWT_SECRET is required' }).min(32, { message: 'JWT_SECRET must be at least 32 characters' }),
   JWT_EXPIRES_IN_SECONDS: z.coerce.number().int().min(60).max(30 * 24 * 3600).default(12 * 3600),
   SIGN_IN_ATTEMPTS_PER_15_MIN: z.coerce.number().int().min(1).default(10),
+  ENGINE_THREADS: z.coerce.number().int().min(1).max(64).default(DEFAULT_ENGINE_THREADS),
+  ENGINE_TIMEOUT_MS: z.coerce.number().int().min(1000).default(30_000),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).optional(),
 })
 
@@ -32,6 +38,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env) {
       tokenTtlSeconds: e.JWT_EXPIRES_IN_SECONDS,
       signInAttemptsPer15Min: e.SIGN_IN_ATTEMPTS_PER_15_MIN,
     },
+    engine: { threads: e.ENGINE_THREADS, timeoutMs: e.ENGINE_TIMEOUT_MS },
     log: { level: e.LOG_LEVEL ?? (e.NODE_ENV === 'test' ? 'silent' : 'info') },
   })
 }

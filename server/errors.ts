@@ -6,6 +6,8 @@ export class HttpError extends Error {
     readonly code: string,
     message: string,
     readonly details?: unknown,
+    /** extra top-level fields of the response body, e.g. `current` on a 409 */
+    readonly extra?: Record<string, unknown>,
   ) {
     super(message)
     this.name = 'HttpError'
@@ -15,3 +17,13 @@ export class HttpError extends Error {
 export const notFound = (what: string) => new HttpError(404, 'not-found', `${what} not found`)
 export const forbidden = (message = 'Your role in this channel does not allow this') =>
   new HttpError(403, 'forbidden', message)
+
+/** A save based on an old version: nothing was written, and the caller gets the current copy to compare with. */
+export const stale = (what: string, current: unknown) =>
+  new HttpError(
+    409,
+    'stale',
+    `Someone saved a newer version of this ${what} while you were editing. Nothing of yours was overwritten: compare with the current copy and save again.`,
+    undefined,
+    { current },
+  )

@@ -2,6 +2,7 @@ import { createApp } from './app'
 import { loadConfig } from './config'
 import { createDb } from './db/knex'
 import { createLogger } from './logger'
+import { createEnginePool } from './workers/engine-pool'
 
 let config
 try {
@@ -13,7 +14,8 @@ try {
 
 const logger = createLogger(config.log.level)
 const db = createDb(config.db.url)
-const app = createApp({ db, config, logger })
+const engine = createEnginePool({ ...config.engine, logger })
+const app = createApp({ db, config, logger, engine })
 
 const server = app.listen(config.http.port, config.http.host, () => {
   const address = server.address()
@@ -28,6 +30,7 @@ server.on('error', (error) => {
 async function shutdown(signal: string) {
   logger.info({ signal }, 'shutting down')
   server.close()
+  await engine.destroy()
   await db.destroy()
   process.exit(0)
 }

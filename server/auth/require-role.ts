@@ -5,6 +5,10 @@ import { findRole } from '../db/memberships'
 import { forbidden, HttpError, notFound } from '../errors'
 
 export const ALL_ROLES: readonly Role[] = ['owner', 'presenter', 'editor', 'viewer']
+/** who works on puzzles and outlines; viewers see them only through published episodes */
+export const STUDIO_TEAM: readonly Role[] = ['owner', 'presenter', 'editor']
+/** who creates and deletes puzzles and outlines (editors only edit outline text) */
+export const STUDIO_MAKERS: readonly Role[] = ['owner', 'presenter']
 
 /**
  * Allows the request when the signed-in user holds one of `roles` in the channel named by `:channelId`.

@@ -1,5 +1,7 @@
 import 'knex/types/tables'
 import type { Role } from '../../shared/schemas/auth'
+import type { Outline } from '../../shared/schemas/outline'
+import type { PuzzleCheck, PuzzleRecord } from '../../shared/schemas/studio'
 
 export interface UserRow {
   id: number
@@ -26,10 +28,48 @@ export interface MembershipRow {
   created_at: Date
 }
 
+export interface PuzzleRow {
+  id: number
+  channel_id: number
+  title: string
+  author: string
+  link: string
+  /** 'YYYY-MM-DD' or '' */
+  published_on: string
+  notes: string
+  givens: string
+  /** cell-name paths, bulb first */
+  thermometers: string[][]
+  check: PuzzleCheck
+  problems: PuzzleRecord['problems']
+  solution: string | null
+  version: number
+  created_by: number | null
+  created_at: Date
+  updated_at: Date
+}
+
+export interface OutlineRow {
+  id: number
+  puzzle_id: number
+  name: string
+  status: Outline['status']
+  step_count: number
+  total_ms: number
+  /** the whole Outline document */
+  document: Outline
+  version: number
+  created_by: number | null
+  created_at: Date
+  updated_at: Date
+}
+
 declare module 'knex/types/tables' {
   interface Tables {
     users: UserRow
     channels: ChannelRow
     memberships: MembershipRow
+    puzzles: PuzzleRow
+    outlines: OutlineRow
   }
 }

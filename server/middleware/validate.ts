@@ -1,5 +1,5 @@
 import type { RequestHandler } from 'express'
-import type { ZodType } from 'zod'
+import { z, type ZodType } from 'zod'
 import { HttpError } from '../errors'
 
 interface Schemas {
@@ -24,4 +24,16 @@ export function validate(schemas: Schemas): RequestHandler {
     }
     next()
   }
+}
+
+// ids are PostgreSQL integers: anything larger would fail in the database instead of here
+const id = z.coerce
+  .number({ message: 'must be a positive whole number' })
+  .int({ message: 'must be a positive whole number' })
+  .min(1, { message: 'must be a positive whole number' })
+  .max(2_147_483_647, { message: 'is too large to be an id' })
+
+/** A params schema of numeric ids, e.g. `idParams('channelId', 'puzzleId')`. */
+export function idParams<K extends string>(...names: K[]) {
+  return z.object(Object.fromEntries(names.map((name) => [name, id])) as Record<K, typeof id>)
 }

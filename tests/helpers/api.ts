@@ -2,11 +2,15 @@ import request from 'supertest'
 import type { Express } from 'express'
 import { createApp } from '../../server/app'
 import type { Db } from '../../server/db/knex'
+import { createEnginePool, type EnginePool } from '../../server/workers/engine-pool'
 import { DEMO_PASSWORD, DEMO_USERS } from '../../seeds/01_demo_channel'
 import type { Role } from '../../shared/schemas/auth'
 import { testConfig } from './db'
 
-export const buildTestApp = (db: Db): Express => createApp({ db, config: testConfig(), clientDir: '/nonexistent' })
+export const buildTestApp = (db: Db, engine?: EnginePool): Express => createApp({ db, config: testConfig(), engine, clientDir: '/nonexistent' })
+
+/** A one-thread engine pool for API tests; destroy it in afterAll. */
+export const testEnginePool = (): EnginePool => createEnginePool({ threads: 1, timeoutMs: 60_000 })
 
 export const demoEmail = (role: Role) => DEMO_USERS.find((u) => u.role === role)!.email
 

@@ -1,0 +1,47 @@
+import type { Db } from './knex'
+import type { OutlineRow } from './tables'
+
+export type OutlineFields = Pick<OutlineRow, 'name' | 'status' | 'step_count' | 'total_ms' | 'document'>
+export type OutlineSummaryRow = Omit<OutlineRow, 'document'>
+
+const SUMMARY_COLUMNS = ['id', 'puzzle_id', 'name', 'status', 'step_count', 'total_ms', 'version', 'created_by', 'created_at', 'updated_at'] as const
+
+const toColumns = (db: Db, fields: OutlineFields) => ({ ...fields, document: db.raw('?::jsonb', [JSON.stringify(fields.document)]) })
+
+/** Summaries without the documents, oldest first (the order the takes were made). */
+export function listOutlines(db: Db, puzzleId: number): Promise<OutlineSummaryRow[]> {
+  return db('outlines').where({ puzzle_id: puzzleId }).orderBy('id').select(...SUMMARY_COLUMNS)
+}
+
+export function countOutlines(db: Db, puzzleId: number): Promise<number> {
+  return db('outlines').where({ puzzle_id: puzzleId }).count({ n: '*' }).then(([r]) => Number(r?.n ?? 0))
+}
+
+/** An outline only when its puzzle belongs to the channel. */
+export function findOutline(db: Db, channelId: number, outlineId: number): Promise<OutlineRow | undefined> {
+  return db('outlines')
+    .join('puzzles', 'puzzles.id', 'outlines.puzzle_id')
+    .where('outlines.id', outlineId)
+    .andWhere('puzzles.channel_id', channelId)
+    .first('outlines.*')
+}
+
+export async function insertOutline(db: Db, puzzleId: number, createdBy: number | null, fields: OutlineFields): Promise<OutlineRow> {
+  const [row] = await db('outlines')
+    .insert({ ...toColumns(db, fields), puzzle_id: puzzleId, created_by: createdBy })
+    .returning('*')
+  return row as OutlineRow
+}
+
+/** Saves over `version`; undefined when the row is gone or someone saved a newer version first. */
+export async function updateOutline(db: Db, outlineId: number, version: number, fields: OutlineFields): Promise<OutlineRow | undefined> {
+  const [row] = await db('outlines')
+    .where({ id: outlineId, version })
+    .update({ ...toColumns(db, fields), version: version + 1, updated_at: db.fn.now() })
+    .returning('*')
+  return row as OutlineRow | undefined
+}
+
+export async function deleteOutline(db: Db, outlineId: number): Promise<boolean> {
+  return (await db('outlines').where({ id: outlineId }).delete()) > 0
+}

@@ -1,0 +1,49 @@
+/** Last candidate in a cell (naked single): every other digit is ruled out. */
+import { CELL_HOUSES, HOUSES, POPCOUNT, digitsOf, houseRef, lowestDigit } from '../geometry'
+import type { Board } from '../board'
+import type { Cell, HouseRef } from '../types'
+import { Picker, type Deduction, type Technique } from './deduction'
+import { TECHNIQUES } from './catalog'
+
+export const nakedSingle: Technique = {
+  find(board, near) {
+    const picker = new Picker(near)
+    for (let c = 0; c < 81 && !picker.settled; c++) {
+      if (board.digits[c] || POPCOUNT[board.cand[c]] !== 1) continue
+      picker.offer([c], () => build(board, c))
+    }
+    return picker.best
+  },
+}
+
+function build(board: Board, cell: Cell): Deduction {
+  const digit = lowestDigit(board.cand[cell])
+  const [rowH, colH, boxH] = CELL_HOUSES[cell]
+  const inRow = board.placedIn(rowH)
+  const inCol = board.placedIn(colH) & ~inRow
+  const inBox = board.placedIn(boxH) & ~inRow & ~inCol
+  const elsewhere = 0x1ff & ~board.cand[cell] & ~inRow & ~inCol & ~inBox
+  const houses: HouseRef[] = []
+  const cells: Cell[] = []
+  for (const [h, mask] of [[rowH, inRow], [colH, inCol], [boxH, inBox]] as const) {
+    if (!mask) continue
+    houses.push(houseRef(h))
+    for (const p of HOUSES[h]) if (p !== cell && board.digits[p] && mask & (1 << (board.digits[p] - 1))) cells.push(p)
+  }
+  const thermometers: number[] = []
+  if (elsewhere) board.thermometers.forEach((t, i) => t.includes(cell) && thermometers.push(i))
+  return {
+    technique: 'naked-single',
+    placements: [{ cell, digit }],
+    eliminations: [],
+    focus: [cell],
+    reason: { houses, thermometers, cells },
+    facts: {
+      kind: 'single-cell',
+      cell,
+      digit,
+      seen: { row: digitsOf(inRow), column: digitsOf(inCol), box: digitsOf(inBox), thermometer: digitsOf(elsewhere) },
+    },
+    difficulty: TECHNIQUES['naked-single'].difficulty,
+  }
+}

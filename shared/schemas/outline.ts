@@ -1,0 +1,198 @@
+/**
+ * Wire contract of a timed outline (the script, its timing inputs and chapters) and of the
+ * edit operations the studio sends. Client, server and shared/script use these one copies.
+ */
+import { z } from 'zod'
+import type { Step } from '../engine/types'
+
+const cell = z.int().min(0).max(80)
+const digit = z.int().min(1).max(9)
+const houseRef = z.object({ kind: z.enum(['row', 'column', 'box']), index: z.int().min(0).max(8) })
+const techniqueId = z.enum([
+  'naked-single',
+  'hidden-single',
+  'naked-pair',
+  'naked-triple',
+  'hidden-pair',
+  'hidden-triple',
+  'locked-box-line',
+  'locked-line-box',
+  'thermo-length',
+  'thermo-bounds',
+  'contradiction',
+])
+const range = z.object({ cell, min: digit, max: digit })
+
+const factsSchema = z.discriminatedUnion('kind', [
+  z.object({
+    kind: z.literal('single-cell'),
+    cell,
+    digit,
+    seen: z.object({ row: z.array(digit), column: z.array(digit), box: z.array(digit), thermometer: z.array(digit) }),
+  }),
+  z.object({ kind: z.literal('single-house'), cell, digit, house: houseRef, blockedCells: z.array(cell) }),
+  z.object({ kind: z.literal('subset'), form: z.enum(['naked', 'hidden']), house: houseRef, cells: z.array(cell), digits: z.array(digit) }),
+  z.object({
+    kind: z.literal('locked'),
+    digit,
+    box: z.int().min(0).max(8),
+    line: houseRef,
+    direction: z.enum(['box-to-line', 'line-to-box']),
+    cells: z.array(cell),
+  }),
+  z.object({ kind: z.literal('thermo-length'), thermometer: z.int().min(0), length: z.int().min(2).max(9), ranges: z.array(range) }),
+  z.object({
+    kind: z.literal('thermo-bounds'),
+    thermometer: z.int().min(0),
+    direction: z.enum(['min', 'max']),
+    fromCell: cell,
+    fromDigit: digit,
+    ranges: z.array(range),
+    withSudoku: z.boolean(),
+  }),
+  z.object({
+    kind: z.literal('contradiction'),
+    cell,
+    assumed: digit,
+    chain: z.array(
+      z.object({
+        technique: techniqueId,
+        kind: z.enum(['place', 'eliminate']),
+        cell,
+        digits: z.array(digit),
+        house: houseRef.optional(),
+        thermometer: z.int().min(0).optional(),
+      }),
+    ),
+    emptyCell: cell.optional(),
+    emptyHouse: z.object({ house: houseRef, digit }).optional(),
+  }),
+])
+
+/** An engine step as stored inside an outline; unknown extra fields are kept (the engine may add some). */
+export const stepSchema: z.ZodType<Step> = z.looseObject({
+  technique: techniqueId,
+  placements: z.array(z.object({ cell, digit })),
+  eliminations: z.array(z.object({ cell, digits: z.array(digit) })),
+  focus: z.array(cell),
+  reason: z.object({ houses: z.array(houseRef), thermometers: z.array(z.int().min(0)), cells: z.array(cell) }),
+  facts: factsSchema,
+  difficulty: z.number(),
+  marks: z.array(cell),
+  text: z.string(),
+})
+
+export const namingStyleSchema = z.enum(['words', 'coords'])
+export type NamingStyle = z.infer<typeof namingStyleSchema>
+
+/** Words a minute a narration may be set to; outside this it is a typo, not a pace. */
+export const PACE_MIN = 60
+export const PACE_MAX = 400
+const pace = z.number().min(PACE_MIN).max(PACE_MAX)
+
+export const outlineLineSchema = z.object({
+  id: z.int().min(1),
+  kind: z.enum(['intro', 'step', 'outro']),
+  /** indices into `steps`, consecutive and ascending; empty for intro and outro */
+  steps: z.array(z.int().min(0)),
+  text: z.string().min(1),
+  /** true once a person changed the text: re-rendering (e.g. a new naming style) leaves it alone */
+  edited: z.boolean(),
+  hidden: z.boolean(),
+  /** which of the technique's phrasings the text was rendered with, so re-rendering keeps it */
+  phrasing: z.int().min(0),
+  /** estimated duration, kept in step with text and pace by every edit */
+  estMs: z.int().min(0),
+  /** start time in the aligned recording */
+  alignedStartMs: z.int().min(0).optional(),
+})
+export type OutlineLine = z.infer<typeof outlineLineSchema>
+
+export const chapterSchema = z.object({
+  /** the line the chapter starts at */
+  lineId: z.int().min(1),
+  title: z.string().trim().min(1).max(100),
+  edited: z.boolean(),
+})
+export type Chapter = z.infer<typeof chapterSchema>
+
+export const outlineSchema = z
+  .object({
+    version: z.literal(1),
+    title: z.string().min(1),
+    author: z.string().optional(),
+    link: z.string().optional(),
+    pace,
+    names: namingStyleSchema,
+    targetMs: z.int().min(1).optional(),
+    status: z.enum(['solved', 'stuck']),
+    puzzle: z.object({
+      givens: z.string().regex(/^[1-9.]{81}$/, 'givens must be 81 characters, 1-9 or "."'),
+      thermometers: z.array(z.array(cell).min(2).max(9)),
+    }),
+    steps: z.array(stepSchema).min(1),
+    lines: z.array(outlineLineSchema).min(1),
+    chapters: z.array(chapterSchema).min(1),
+  })
+  .superRefine((o, ctx) => {
+    const issue = (message: string) => ctx.addIssue({ code: 'custom', message })
+    const ids = new Set<number>()
+    let nextStep = 0
+    o.lines.forEach((line, i) => {
+      if (ids.has(line.id)) issue(`line ${line.id} appears twice`)
+      ids.add(line.id)
+      if (line.kind === 'intro' && i !== 0) issue('the intro must be the first line')
+      if (line.kind === 'outro' && i !== o.lines.length - 1) issue('the outro must be the last line')
+      if (line.kind !== 'step' && line.steps.length > 0) issue(`line ${line.id} is an ${line.kind} and covers no steps`)
+      if (line.kind === 'step' && line.steps.length === 0) issue(`line ${line.id} covers no steps`)
+      for (const s of line.steps) {
+        if (s !== nextStep) {
+          issue(`line ${line.id} covers step ${s + 1}, expected step ${nextStep + 1}`)
+          return
+        }
+        nextStep++
+      }
+    })
+    if (nextStep !== o.steps.length) issue(`the lines cover ${nextStep} of ${o.steps.length} steps`)
+    const seen = new Set<number>()
+    for (const ch of o.chapters) {
+      if (!ids.has(ch.lineId)) issue(`chapter "${ch.title}" starts at line ${ch.lineId}, which does not exist`)
+      if (seen.has(ch.lineId)) issue(`two chapters start at line ${ch.lineId}`)
+      seen.add(ch.lineId)
+    }
+    if (o.chapters.length > 0 && o.chapters[0].lineId !== o.lines[0].id) issue('the first chapter must start at the first line')
+    const order = new Map(o.lines.map((l, i) => [l.id, i]))
+    for (let i = 1; i < o.chapters.length; i++) {
+      if ((order.get(o.chapters[i].lineId) ?? -1) <= (order.get(o.chapters[i - 1].lineId) ?? -1)) {
+        issue('chapters must be in line order')
+        break
+      }
+    }
+    let lastAligned = -1
+    for (const line of o.lines) {
+      if (line.alignedStartMs === undefined) continue
+      if (line.alignedStartMs < lastAligned) issue(`line ${line.id} is aligned before the line above it`)
+      lastAligned = line.alignedStartMs
+    }
+  })
+export type Outline = z.infer<typeof outlineSchema>
+
+const lineId = z.int().min(1)
+
+/** One edit the studio can make; `applyEdit` in shared/script runs it. */
+export const outlineEditSchema = z.discriminatedUnion('op', [
+  z.object({ op: z.literal('editLineText'), lineId, text: z.string() }),
+  z.object({ op: z.literal('revertLineText'), lineId }),
+  z.object({ op: z.literal('foldLines'), lineIds: z.array(lineId).min(2) }),
+  z.object({ op: z.literal('splitLine'), lineId }),
+  z.object({ op: z.literal('hideLine'), lineId }),
+  z.object({ op: z.literal('showLine'), lineId }),
+  z.object({ op: z.literal('startChapterAt'), lineId, title: z.string().optional() }),
+  z.object({ op: z.literal('renameChapter'), lineId, title: z.string() }),
+  z.object({ op: z.literal('removeChapter'), lineId }),
+  z.object({ op: z.literal('setPace'), pace: z.number() }),
+  z.object({ op: z.literal('setNames'), names: namingStyleSchema }),
+  z.object({ op: z.literal('setTarget'), targetMs: z.number().nullable() }),
+  z.object({ op: z.literal('alignLine'), lineId, startMs: z.number().nullable() }),
+])
+export type OutlineEdit = z.infer<typeof outlineEditSchema>

@@ -1,0 +1,26 @@
+/**
+ * The puzzle file: Gridcue's own JSON for a sudoku with thermometers.
+ * `puzzleFileShape` checks structure only, so the engine can turn content problems
+ * into specific messages with cells; `puzzleFileSchema` adds the content rules for callers
+ * that only need a yes or no (for example a request body).
+ */
+import { z } from 'zod'
+
+/** A cell name such as "r3c4": row then column, each 1..9. */
+export const cellNameSchema = z.string().regex(/^[rR][1-9][cC][1-9]$/, 'a cell name such as r3c4')
+
+/** The structure of a puzzle file, without checking givens or cell names. */
+export const puzzleFileShape = z.object({
+  title: z.string().trim().min(1, 'title must not be empty').max(200, 'title is longer than 200 characters'),
+  author: z.string().trim().max(200, 'author is longer than 200 characters').optional(),
+  givens: z.string(),
+  thermometers: z.array(z.array(z.string())).max(81, 'more than 81 thermometers').default([]),
+})
+
+/** A puzzle file with its content rules: 81 givens of 1-9 or '.', thermometers as cell-name paths. */
+export const puzzleFileSchema = puzzleFileShape.extend({
+  givens: z.string().regex(/^[1-9.0]{81}$/, "81 characters, each 1-9 or '.'"),
+  thermometers: z.array(z.array(cellNameSchema).min(2).max(9)).max(81).default([]),
+})
+
+export type PuzzleFile = z.infer<typeof puzzleFileSchema>

@@ -1,0 +1,99 @@
+/**
+ * Wire contract of the studio API: puzzles under a channel and their outlines (several takes each).
+ * Routes (all JSON, all under /api/channels/:channelId):
+ *   GET    /puzzles                          owner, presenter, editor  → PuzzleSummary[]
+ *   POST   /puzzles                          owner, presenter          → PuzzleRecord (201)
+ *   GET    /puzzles/:puzzleId                owner, presenter, editor  → PuzzleRecord
+ *   PUT    /puzzles/:puzzleId                owner, presenter          body PuzzleUpdate → PuzzleRecord; stale version → 409 StaleBody
+ *   DELETE /puzzles/:puzzleId                owner, presenter          → 204
+ *   GET    /puzzles/:puzzleId/outlines       owner, presenter, editor  → OutlineSummary[]
+ *   POST   /puzzles/:puzzleId/outlines       owner, presenter          body OutlineCreate → OutlineRecord (201); engine runs in a worker pool
+ *   GET    /outlines/:outlineId              owner, presenter, editor  → OutlineRecord
+ *   PATCH  /outlines/:outlineId              owner, presenter, editor  body OutlineSave → OutlineRecord; stale version → 409 StaleBody
+ *   POST   /outlines/:outlineId/duplicate    owner, presenter          → OutlineRecord (201)
+ *   DELETE /outlines/:outlineId              owner, presenter          → 204
+ * Viewers see puzzles only through published episodes (later work).
+ */
+import { z } from 'zod'
+import { puzzleFileShape } from './puzzle'
+import { namingStyleSchema, outlineSchema, PACE_MAX, PACE_MIN } from './outline'
+
+/** What the puzzle form sends. Structure only: a draft may still be invalid or not yet unique. */
+export const puzzleDraftSchema = puzzleFileShape.extend({
+  givens: z.string().regex(/^[1-9.0]{81}$/, "givens must be 81 characters, each 1-9 or '.'"),
+  thermometers: z.array(z.array(z.string().regex(/^[rR][1-9][cC][1-9]$/, 'cells are named like r3c4')).max(81)).max(81).default([]),
+  link: z.union([z.url({ message: 'link must be a web address (https://…)' }), z.literal('')]).optional(),
+  publishedOn: z.union([z.iso.date({ message: 'publication date must be YYYY-MM-DD' }), z.literal('')]).optional(),
+  notes: z.string().max(5000, 'notes are longer than 5000 characters').optional(),
+})
+export type PuzzleDraft = z.infer<typeof puzzleDraftSchema>
+
+export const puzzleUpdateSchema = puzzleDraftSchema.extend({ version: z.int().min(1) })
+export type PuzzleUpdate = z.infer<typeof puzzleUpdateSchema>
+
+/** The engine's verdict on the saved givens and thermometers. */
+export const puzzleCheckSchema = z.enum(['unique', 'no-solution', 'multiple-solutions', 'invalid'])
+export type PuzzleCheck = z.infer<typeof puzzleCheckSchema>
+
+export const puzzleSummarySchema = z.object({
+  id: z.int(),
+  channelId: z.int(),
+  title: z.string(),
+  author: z.string(),
+  check: puzzleCheckSchema,
+  outlineCount: z.int(),
+  version: z.int(),
+  updatedAt: z.string(),
+})
+export type PuzzleSummary = z.infer<typeof puzzleSummarySchema>
+
+export const puzzleRecordSchema = puzzleSummarySchema.extend({
+  givens: z.string(),
+  thermometers: z.array(z.array(z.string())),
+  link: z.string(),
+  publishedOn: z.string(),
+  notes: z.string(),
+  /** the engine's messages when check is not 'unique' */
+  problems: z.array(z.object({ code: z.string(), message: z.string(), cells: z.array(z.int()) })),
+})
+export type PuzzleRecord = z.infer<typeof puzzleRecordSchema>
+
+export const outlineCreateSchema = z.object({
+  name: z.string().trim().min(1).max(100).optional(),
+  pace: z.number().min(PACE_MIN, `pace must be at least ${PACE_MIN} words a minute`).max(PACE_MAX, `pace must be at most ${PACE_MAX} words a minute`).optional(),
+  names: namingStyleSchema.optional(),
+})
+export type OutlineCreate = z.infer<typeof outlineCreateSchema>
+
+export const outlineSummarySchema = z.object({
+  id: z.int(),
+  puzzleId: z.int(),
+  name: z.string(),
+  status: z.enum(['solved', 'stuck']),
+  stepCount: z.int(),
+  totalMs: z.int(),
+  version: z.int(),
+  updatedAt: z.string(),
+})
+export type OutlineSummary = z.infer<typeof outlineSummarySchema>
+
+export const outlineRecordSchema = outlineSummarySchema.extend({
+  /** the whole script document: engine steps, lines, chapters, pace (see ./outline) */
+  outline: outlineSchema,
+})
+export type OutlineRecord = z.infer<typeof outlineRecordSchema>
+
+export const outlineSaveSchema = z.object({
+  /** the version the client read; a different current version answers 409 */
+  version: z.int().min(1),
+  name: z.string().trim().min(1).max(100).optional(),
+  outline: outlineSchema,
+})
+export type OutlineSave = z.infer<typeof outlineSaveSchema>
+
+/** Body of a 409: the copy now on the server, so the client can show both versions. */
+export interface StaleBody<T> {
+  code: 'stale'
+  message: string
+  current: T
+}

@@ -1,0 +1,30 @@
+/**
+ * Script and timing: from an engine solve path to what a presenter says, when, and every export.
+ */
+export { buildOutline, type BuildOptions } from './build'
+export { timeline, TIMING, type Timeline, type TimedLine, type TimedChapter } from './timing'
+export { fitToTarget, type FitResult, type FitSuggestion } from './fit'
+export {
+  editLineText,
+  revertLineText,
+  foldLines,
+  splitLine,
+  hideLine,
+  showLine,
+  startChapterAt,
+  renameChapter,
+  removeChapter,
+  setPace,
+  setNames,
+  setTarget,
+  alignLine,
+  applyEdit,
+} from './edits'
+export { publishedChapters, type PublishedChapter } from './chapters'
+export { toWebVttChapters, toWebVttCaptions } from './webvtt'
+export { toSrt } from './srt'
+export { toDescription } from './description'
+export { toOutlineJson, fromOutlineJson } from './json'
+export { cueSheetRows, type CueSheetRow } from './cue-sheet'
+export { formatClock } from './timecode'
+export type { Outline, OutlineLine, Chapter, NamingStyle, OutlineEdit } from '../schemas/outline'

@@ -1,0 +1,116 @@
+import { apiErrorSchema } from '@shared/schemas/auth'
+import { config } from '@/config'
+
+/** A failed API call, whatever went wrong: status 0 means the server was never reached. */
+export class ApiError extends Error {
+  override readonly name = 'ApiError'
+
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly details?: unknown,
+  ) {
+    super(message)
+  }
+}
+
+export function isApiError(value: unknown): value is ApiError {
+  return value instanceof ApiError
+}
+
+/** Anything with a zod-like `parse`; every response body is checked against the shared contract. */
+export interface Parser<T> {
+  parse(data: unknown): T
+}
+
+export interface HttpAuth {
+  /** The bearer token to send, or null when nobody is signed in. */
+  getToken(): string | null
+  /** Called when a request that carried a token answers 401: the session is no longer valid. */
+  onUnauthorized(): void
+}
+
+export interface RequestOptions {
+  /** Send the bearer token (default true). Sign-in turns it off. */
+  auth?: boolean
+  signal?: AbortSignal
+}
+
+type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE'
+
+let auth: HttpAuth = { getToken: () => null, onUnauthorized: () => {} }
+
+/** The session store registers itself here, so the client never imports a store (no import cycle). */
+export function setHttpAuth(next: HttpAuth): void {
+  auth = next
+}
+
+async function request<T>(method: Method, path: string, parser: Parser<T>, body: unknown, options: RequestOptions = {}): Promise<T> {
+  const headers: Record<string, string> = { Accept: 'application/json' }
+  if (body !== undefined) headers['Content-Type'] = 'application/json'
+  const token = options.auth === false ? null : auth.getToken()
+  if (token) headers.Authorization = `Bearer ${token}`
+
+  let response: Response
+  try {
+    response = await fetch(`${config.apiBase}${path}`, {
+      method,
+      headers,
+      body: body === undefined ? undefined : JSON.stringify(body),
+      signal: options.signal,
+    })
+  } catch (error) {
+    // An abort is the caller's decision (e.g. a query that is no longer needed), not a failure to report.
+    if (error instanceof DOMException && error.name === 'AbortError') throw error
+    throw new ApiError(0, 'network-error', "Can't reach Gridcue. Check your connection and try again.")
+  }
+
+  const data = await readJson(response)
+  if (!response.ok) {
+    if (response.status === 401 && token) auth.onUnauthorized()
+    throw toApiError(response.status, data)
+  }
+  try {
+    return parser.parse(data)
+  } catch {
+    throw new ApiError(response.status, 'unexpected-response', 'The server sent an answer Gridcue does not understand.')
+  }
+}
+
+async function readJson(response: Response): Promise<unknown> {
+  if (response.status === 204) return undefined
+  const text = await response.text()
+  if (!text) return undefined
+  try {
+    return JSON.parse(text)
+  } catch {
+    return undefined
+  }
+}
+
+function toApiError(status: number, data: unknown): ApiError {
+  const body = apiErrorSchema.safeParse(data)
+  if (body.success) return new ApiError(status, body.data.code, body.data.message, body.data.details)
+  return new ApiError(status, `http-${status}`, fallbackMessage(status))
+}
+
+function fallbackMessage(status: number): string {
+  if (status === 401) return 'Please sign in again.'
+  if (status === 403) return "You don't have access to this."
+  if (status === 404) return 'Not found.'
+  if (status === 429) return 'Too many requests. Wait a minute and try again.'
+  if (status >= 500) return 'Something went wrong on the server. Try again in a moment.'
+  return `The request failed (${status}).`
+}
+
+/** For calls whose body is ignored (e.g. 204 No Content). */
+export const noContent: Parser<void> = { parse: () => undefined }
+
+export const http = {
+  get: <T>(path: string, parser: Parser<T>, options?: RequestOptions) => request('GET', path, parser, undefined, options),
+  post: <T>(path: string, body: unknown, parser: Parser<T>, options?: RequestOptions) => request('POST', path, parser, body, options),
+  put: <T>(path: string, body: unknown, parser: Parser<T>, options?: RequestOptions) => request('PUT', path, parser, body, options),
+  patch: <T>(path: string, body: unknown, parser: Parser<T>, options?: RequestOptions) => request('PATCH', path, parser, body, options),
+  delete: <T>(path: string, parser: Parser<T>, options?: RequestOptions) => request('DELETE', path, parser, undefined, options),
+}

@@ -1,0 +1,39 @@
+import { z } from 'zod'
+import { outlineRecordSchema, outlineSummarySchema } from '@shared/schemas/studio'
+import type { OutlineCreate, OutlineRecord, OutlineSave, OutlineSummary } from '@shared/schemas/studio'
+import { http, noContent } from './http'
+import { withStaleCheck } from './stale'
+
+const outlineListSchema = z.array(outlineSummarySchema)
+const channelBase = (channelId: number) => `/channels/${channelId}`
+
+/** The takes of one puzzle. */
+export function listOutlines(channelId: number, puzzleId: number, signal?: AbortSignal): Promise<OutlineSummary[]> {
+  return http.get(`${channelBase(channelId)}/puzzles/${puzzleId}/outlines`, outlineListSchema, { signal })
+}
+
+export function getOutline(channelId: number, outlineId: number, signal?: AbortSignal): Promise<OutlineRecord> {
+  return http.get(`${channelBase(channelId)}/outlines/${outlineId}`, outlineRecordSchema, { signal })
+}
+
+/** Runs the engine on the saved puzzle and writes a first script; can take a few seconds on hard puzzles. */
+export function createOutline(channelId: number, puzzleId: number, body: OutlineCreate = {}): Promise<OutlineRecord> {
+  return http.post(`${channelBase(channelId)}/puzzles/${puzzleId}/outlines`, body, outlineRecordSchema)
+}
+
+/** Saves over `body.version`; if someone saved since, rejects with a StaleError holding their copy. */
+export function saveOutline(channelId: number, outlineId: number, body: OutlineSave): Promise<OutlineRecord> {
+  return withStaleCheck(
+    () => http.patch(`${channelBase(channelId)}/outlines/${outlineId}`, body, outlineRecordSchema),
+    outlineRecordSchema,
+    () => getOutline(channelId, outlineId),
+  )
+}
+
+export function duplicateOutline(channelId: number, outlineId: number): Promise<OutlineRecord> {
+  return http.post(`${channelBase(channelId)}/outlines/${outlineId}/duplicate`, undefined, outlineRecordSchema)
+}
+
+export function removeOutline(channelId: number, outlineId: number): Promise<void> {
+  return http.delete(`${channelBase(channelId)}/outlines/${outlineId}`, noContent)
+}

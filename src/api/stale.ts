@@ -1,0 +1,41 @@
+import type { Parser } from './http'
+import { ApiError, isApiError } from './http'
+
+/** A save refused because someone else saved first (409): carries the copy now on the server. */
+export class StaleError<T> extends ApiError {
+  constructor(
+    message: string,
+    readonly current: T,
+  ) {
+    super(409, 'stale', message)
+  }
+}
+
+export function isStaleError<T = unknown>(value: unknown): value is StaleError<T> {
+  return value instanceof StaleError
+}
+
+/**
+ * Turns a 409 from a versioned save into a StaleError holding the server's copy. The copy comes from the error
+ * body when the server put it there (`current`, or `details.current`); otherwise it is fetched again, so the
+ * conflict dialog never depends on how the body was shaped.
+ */
+export async function withStaleCheck<T>(save: () => Promise<T>, parser: Parser<T>, fetchCurrent: () => Promise<T>): Promise<T> {
+  try {
+    return await save()
+  } catch (error) {
+    if (!isApiError(error) || error.status !== 409) throw error
+    const details = error.details as { current?: unknown } | undefined
+    const current = readQuietly(parser, details?.current) ?? readQuietly(parser, details) ?? (await fetchCurrent())
+    throw new StaleError(error.message || 'Someone else saved a newer version.', current)
+  }
+}
+
+function readQuietly<T>(parser: Parser<T>, data: unknown): T | undefined {
+  if (data === undefined || data === null) return undefined
+  try {
+    return parser.parse(data)
+  } catch {
+    return undefined
+  }
+}

@@ -1,0 +1,282 @@
+import { computed, onScopeDispose, ref, shallowRef, toValue, watch } from 'vue'
+import type { MaybeRefOrGetter, Ref } from 'vue'
+import { z } from 'zod'
+import { outlineSchema } from '@shared/schemas/outline'
+import type { Outline } from '@shared/schemas/outline'
+import { outlineRecordSchema } from '@shared/schemas/studio'
+import type { OutlineRecord } from '@shared/schemas/studio'
+import { isApiError } from '@/api/http'
+
+export type SaveStatus = 'saved' | 'saving' | 'unsaved' | 'conflict'
+
+export interface AutosaveOptions {
+  outlineId: MaybeRefOrGetter<number>
+  /** The outline as it is now in the editor; every new snapshot counts as a change. */
+  outline: Readonly<Ref<Outline | null>>
+  /** PATCH with the version read; resolves to the saved record, rejects with a 409 ApiError when stale. */
+  save: (version: number, outline: Outline) => Promise<OutlineRecord>
+  /** The server's copy, for a 409 that doesn't carry it (src/api/outlines.ts already attaches it). */
+  fetchCurrent?: () => Promise<OutlineRecord>
+  /** Puts a document in the editor (taking the server's copy, discarding a restored one). */
+  replace: (outline: Outline) => void
+  onSaved?: (record: OutlineRecord) => void
+  /** Quiet time after the last edit before saving. */
+  delayMs?: number
+  /** Wait before trying again after a failed save (network down, server error). */
+  retryMs?: number
+}
+
+export interface SaveConflict {
+  mine: Outline
+  theirs: OutlineRecord
+}
+
+/** What a browser keeps of unsaved edits, so a reload or a crash never loses them. */
+const localCopySchema = z.object({
+  baseVersion: z.int().min(1),
+  savedAt: z.string(),
+  outline: outlineSchema,
+})
+export type LocalCopy = z.infer<typeof localCopySchema>
+
+export function localCopyKey(outlineId: number): string {
+  return `gridcue.studio.outline.${outlineId}`
+}
+
+/**
+ * Saves the outline about a second after the last edit, with the version it was read at. Until the
+ * server has it, the pending outline waits in localStorage. A 409 becomes a conflict holding both
+ * copies; the person keeps theirs (saved over the newer version) or takes the server's.
+ */
+export function useAutosave(options: AutosaveOptions) {
+  const delayMs = options.delayMs ?? 1000
+  const retryMs = options.retryMs ?? 5000
+
+  const status = ref<SaveStatus>('saved')
+  /** The server version the next save is based on. */
+  const version = ref<number | null>(null)
+  const conflict = shallowRef<SaveConflict | null>(null)
+  /** When a local copy from an earlier visit was put back; null when none was. */
+  const restoredFrom = ref<string | null>(null)
+  const lastError = ref<string | null>(null)
+  /** The last outline the server is known to hold; reference equality means "nothing to save". */
+  const baseline = shallowRef<Outline | null>(null)
+  /** The server's copy when the screen opened, for "discard restored edits". */
+  let opened: Outline | null = null
+  let timer: ReturnType<typeof setTimeout> | undefined
+  let inFlight: Promise<void> | null = null
+
+  const key = computed(() => localCopyKey(toValue(options.outlineId)))
+  const label = computed(() => STATUS_LABELS[status.value])
+
+  /**
+   * Call once with the record the server sent. Returns the outline to edit: the server's, or this
+   * browser's unsaved copy when it has one. A copy based on an older version opens a conflict.
+   */
+  function start(record: OutlineRecord): Outline {
+    version.value = record.version
+    baseline.value = record.outline
+    opened = record.outline
+    const local = readLocal()
+    if (!local || JSON.stringify(local.outline) === JSON.stringify(record.outline)) {
+      removeLocal()
+      status.value = 'saved'
+      return record.outline
+    }
+    restoredFrom.value = local.savedAt
+    if (local.baseVersion !== record.version) {
+      conflict.value = { mine: local.outline, theirs: record }
+      status.value = 'conflict'
+    } else {
+      status.value = 'unsaved'
+      schedule(delayMs)
+    }
+    return local.outline
+  }
+
+  watch(options.outline, (next) => {
+    if (!next || version.value === null) return
+    if (next === baseline.value) {
+      clearTimeout(timer)
+      removeLocal()
+      if (status.value !== 'saving' && status.value !== 'conflict') status.value = 'saved'
+      return
+    }
+    writeLocal(next)
+    if (status.value === 'conflict') return
+    if (status.value !== 'saving') status.value = 'unsaved'
+    schedule(delayMs)
+  })
+
+  function schedule(ms: number): void {
+    clearTimeout(timer)
+    timer = setTimeout(() => void saveNow(), ms)
+  }
+
+  /** Saves at once (used on leaving the screen); resolves when this round is over. */
+  function saveNow(): Promise<void> {
+    clearTimeout(timer)
+    if (inFlight) return inFlight
+    inFlight = run().finally(() => {
+      inFlight = null
+    })
+    return inFlight
+  }
+
+  async function run(): Promise<void> {
+    const sending = options.outline.value
+    if (!sending || version.value === null || status.value === 'conflict') return
+    if (sending === baseline.value) {
+      status.value = 'saved'
+      return
+    }
+    status.value = 'saving'
+    try {
+      const record = await options.save(version.value, sending)
+      version.value = record.version
+      baseline.value = sending
+      lastError.value = null
+      options.onSaved?.(record)
+      if (options.outline.value === sending) {
+        status.value = 'saved'
+        removeLocal()
+      } else {
+        // Edited while the request was out: that newer snapshot still needs saving.
+        status.value = 'unsaved'
+        schedule(delayMs)
+      }
+    } catch (error) {
+      await handleFailure(error)
+    }
+  }
+
+  async function handleFailure(error: unknown): Promise<void> {
+    if (isApiError(error) && error.status === 409) {
+      try {
+        const theirs = serverCopyIn(error) ?? (await fetchCurrent())
+        conflict.value = { mine: options.outline.value ?? theirs.outline, theirs }
+        status.value = 'conflict'
+        lastError.value = null
+        return
+      } catch (fetchError) {
+        error = fetchError
+      }
+    }
+    status.value = 'unsaved'
+    lastError.value = error instanceof Error ? error.message : 'The outline could not be saved.'
+    // A 401 ends the session elsewhere; anything else may pass, so try again while the copy waits locally.
+    if (!(isApiError(error) && error.status === 401)) schedule(retryMs)
+  }
+
+  function fetchCurrent(): Promise<OutlineRecord> {
+    if (options.fetchCurrent) return options.fetchCurrent()
+    return Promise.reject(new Error('Someone else saved a newer version, and it could not be loaded.'))
+  }
+
+  /** Saves this browser's outline over the server's newer version. */
+  async function keepMine(): Promise<void> {
+    const c = conflict.value
+    if (!c) return
+    conflict.value = null
+    version.value = c.theirs.version
+    baseline.value = c.theirs.outline
+    status.value = 'unsaved'
+    if (options.outline.value !== c.mine) options.replace(c.mine)
+    await saveNow()
+  }
+
+  /** Drops this browser's edits and continues from the server's copy. */
+  function takeTheirs(): void {
+    const c = conflict.value
+    if (!c) return
+    conflict.value = null
+    version.value = c.theirs.version
+    baseline.value = c.theirs.outline
+    clearTimeout(timer)
+    options.replace(c.theirs.outline)
+    removeLocal()
+    status.value = 'saved'
+    restoredFrom.value = null
+    options.onSaved?.(c.theirs)
+  }
+
+  /** Undoes a restore: back to the server's copy as it was when the screen opened (saved again if needed). */
+  function discardRestored(): void {
+    restoredFrom.value = null
+    if (opened && options.outline.value !== opened) options.replace(opened)
+  }
+
+  function dismissRestored(): void {
+    restoredFrom.value = null
+  }
+
+  function readLocal(): LocalCopy | null {
+    try {
+      const raw = localStorage.getItem(key.value)
+      if (raw === null) return null
+      const parsed = localCopySchema.safeParse(JSON.parse(raw))
+      if (parsed.success) return parsed.data
+    } catch {
+      // Unreadable: treat as absent.
+    }
+    removeLocal()
+    return null
+  }
+
+  function writeLocal(outline: Outline): void {
+    if (version.value === null) return
+    const copy: LocalCopy = { baseVersion: version.value, savedAt: new Date().toISOString(), outline }
+    try {
+      localStorage.setItem(key.value, JSON.stringify(copy))
+    } catch {
+      lastError.value = "This browser can't keep a backup copy (storage is full); changes are only safe once saved."
+    }
+  }
+
+  function removeLocal(): void {
+    try {
+      localStorage.removeItem(key.value)
+    } catch {
+      // Nothing to remove.
+    }
+  }
+
+  // Closing the tab with edits on their way: the local copy has them, but say so before leaving.
+  function onBeforeUnload(event: BeforeUnloadEvent): void {
+    if (status.value === 'saved') return
+    event.preventDefault()
+  }
+  window.addEventListener('beforeunload', onBeforeUnload)
+  onScopeDispose(() => {
+    window.removeEventListener('beforeunload', onBeforeUnload)
+    // Leaving the screen: send what's pending now rather than drop the timer (the local copy stays until it lands).
+    if (status.value === 'unsaved') void saveNow()
+    else clearTimeout(timer)
+  })
+
+  return {
+    status, label, version, conflict, restoredFrom, lastError,
+    start, saveNow, keepMine, takeTheirs, discardRestored, dismissRestored,
+  }
+}
+
+export type Autosave = ReturnType<typeof useAutosave>
+
+const STATUS_LABELS: Record<SaveStatus, string> = {
+  saved: 'Saved',
+  saving: 'Saving…',
+  unsaved: 'Unsaved changes',
+  conflict: 'Conflict',
+}
+
+/** The server's copy when a 409 carries it (as `current`, directly or under `details`). */
+function serverCopyIn(error: unknown): OutlineRecord | null {
+  const holder = error as { current?: unknown; details?: unknown }
+  const details = holder.details as { current?: unknown } | undefined
+  for (const candidate of [holder.current, details?.current, holder.details]) {
+    if (candidate === undefined) continue
+    const parsed = outlineRecordSchema.safeParse(candidate)
+    if (parsed.success) return parsed.data
+  }
+  return null
+}

@@ -1,0 +1,33 @@
+import type { AddressInfo } from 'node:net'
+import type { Server } from 'node:http'
+import { chromium, type Browser } from 'playwright-core'
+import { createApp } from '../../server/app'
+import type { Db } from '../../server/db/knex'
+import { testConfig } from './db'
+
+/** Flags Chromium needs on this closed, GPU-less machine (see the team's stack notes). */
+const CHROMIUM_ARGS = [
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-quic',
+  '--no-first-run',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+]
+
+export const launchChromium = (): Promise<Browser> =>
+  chromium.launch({ executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium', args: CHROMIUM_ARGS })
+
+/** Serves the built client (dist/) and the API on a free loopback port. */
+export async function serveApp(db: Db): Promise<{ url: string; close: () => Promise<void> }> {
+  const app = createApp({ db, config: testConfig() })
+  const server: Server = await new Promise((resolve) => {
+    const s = app.listen(0, '127.0.0.1', () => resolve(s))
+  })
+  const { port } = server.address() as AddressInfo
+  return {
+    url: `http://127.0.0.1:${port}`,
+    close: () => new Promise((resolve) => server.close(() => resolve())),
+  }
+}

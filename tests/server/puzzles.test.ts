@@ -1,0 +1,277 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import type { Express } from 'express'
+import type { Db } from '../../server/db/knex'
+import type { EnginePool } from '../../server/workers/engine-pool'
+import { ACTORS, buildTestApp, demoEmail, testEnginePool, tokensForAll, type Actor } from '../helpers/api'
+import { openTestDb, resetWithDemo } from '../helpers/db'
+import { draftOf, fixture, otherChannelOfOwner, postPuzzle, send, withoutSolution } from '../helpers/studio'
+
+let db: Db
+let engine: EnginePool
+let app: Express
+let tokens: Record<Actor, string | undefined>
+let channelId: number
+beforeAll(async () => {
+  db = await openTestDb()
+  await resetWithDemo(db)
+  engine = testEnginePool()
+  app = buildTestApp(db, engine)
+  tokens = await tokensForAll(app)
+  channelId = (await db('channels').where({ slug: 'marigold-logic' }).first())!.id
+})
+afterAll(async () => {
+  await engine.destroy()
+  await db.destroy()
+})
+
+const as = (actor: Actor) => ({
+  get: (path: string) => send(app, tokens, actor, 'get', path),
+  post: (path: string, body: object) => send(app, tokens, actor, 'post', path, body),
+  put: (path: string, body: object) => send(app, tokens, actor, 'put', path, body),
+  delete: (path: string) => send(app, tokens, actor, 'delete', path),
+})
+const puzzles = () => `/api/channels/${channelId}/puzzles`
+const create = (id = 'PE01', extra = {}) => postPuzzle(app, tokens.owner!, channelId, draftOf(id, extra))
+
+describe('role matrix', () => {
+  const matrix: { label: string; expected: Record<Actor, number>; call: (actor: Actor) => Promise<{ status: number }> }[] = [
+    {
+      label: 'GET /puzzles',
+      expected: { anonymous: 401, viewer: 403, editor: 200, presenter: 200, owner: 200 },
+      call: (actor) => as(actor).get(puzzles()),
+    },
+    {
+      label: 'POST /puzzles',
+      expected: { anonymous: 401, viewer: 403, editor: 403, presenter: 201, owner: 201 },
+      call: (actor) => as(actor).post(puzzles(), draftOf('PE01')),
+    },
+    {
+      label: 'GET /puzzles/:puzzleId',
+      expected: { anonymous: 401, viewer: 403, editor: 200, presenter: 200, owner: 200 },
+      call: async (actor) => as(actor).get(`${puzzles()}/${(await create()).id}`),
+    },
+    {
+      label: 'PUT /puzzles/:puzzleId',
+      expected: { anonymous: 401, viewer: 403, editor: 403, presenter: 200, owner: 200 },
+      call: async (actor) => {
+        const { id, version } = await create()
+        return as(actor).put(`${puzzles()}/${id}`, { ...draftOf('PE01'), title: `Renamed by ${actor}`, version })
+      },
+    },
+    {
+      label: 'DELETE /puzzles/:puzzleId',
+      expected: { anonymous: 401, viewer: 403, editor: 403, presenter: 204, owner: 204 },
+      call: async (actor) => as(actor).delete(`${puzzles()}/${(await create()).id}`),
+    },
+  ]
+  for (const { label, expected, call } of matrix) {
+    for (const actor of ACTORS) {
+      it(`${label} as ${actor} → ${expected[actor]}`, async () => {
+        expect((await call(actor)).status).toBe(expected[actor])
+      })
+    }
+  }
+
+  it('should answer 404 to the demo people for a channel they are not in', async () => {
+    const [{ id }] = await db('channels').insert({ name: 'Closed Room', slug: 'closed-room' }).returning('id')
+    const res = await as('owner').get(`/api/channels/${id}/puzzles`)
+    expect(res.status).toBe(404)
+    expect(res.body.message).toBe('Channel not found')
+  })
+})
+
+describe('POST /api/channels/:channelId/puzzles', () => {
+  it('should save a classic puzzle as unique with its solution, and fill in the optional fields', async () => {
+    const res = await as('presenter').post(puzzles(), draftOf('PE01'))
+    expect(res.status).toBe(201)
+    expect(res.body).toEqual({
+      id: expect.any(Number),
+      channelId,
+      title: 'Project Euler 96 Grid 01',
+      author: '',
+      check: 'unique',
+      outlineCount: 0,
+      version: 1,
+      updatedAt: expect.any(String),
+      givens: fixture('PE01').givens,
+      thermometers: [],
+      link: '',
+      publishedOn: '',
+      notes: '',
+      problems: [],
+    })
+    const row = await db('puzzles').where({ id: res.body.id }).first()
+    expect(row!.solution).toBe(fixture('PE01').solution)
+    expect(row!.created_by).toBe((await db('users').where({ email: demoEmail('presenter') }).first())!.id)
+  })
+
+  it('should save a thermometer puzzle as unique, with cell names in lower case and 0 read as empty', async () => {
+    const gt = fixture('GT13')
+    const shouting = gt.thermometers!.map((path) => path.map((c) => c.toUpperCase()))
+    const res = await as('owner').post(puzzles(), {
+      title: 'Four Fevers',
+      author: 'Ilse Marchetti',
+      givens: gt.givens.replaceAll('.', '0'),
+      thermometers: shouting,
+      link: 'https://puzzles.example/four-fevers',
+      publishedOn: '2026-11-30',
+      notes: 'Break-in on the long thermometer.',
+    })
+    expect(res.status).toBe(201)
+    expect(res.body).toMatchObject({
+      check: 'unique',
+      givens: gt.givens,
+      thermometers: gt.thermometers,
+      author: 'Ilse Marchetti',
+      link: 'https://puzzles.example/four-fevers',
+      publishedOn: '2026-11-30',
+      notes: 'Break-in on the long thermometer.',
+    })
+    expect((await db('puzzles').where({ id: res.body.id }).first())!.solution).toBe(gt.solution)
+  })
+
+  it('should save a draft with more than one solution, naming two cells where solutions differ', async () => {
+    const res = await as('owner').post(puzzles(), draftOf('PE01', { givens: fixture('PE01').givens.slice(0, 9) + '.'.repeat(72) }))
+    expect(res.status).toBe(201)
+    expect(res.body.check).toBe('multiple-solutions')
+    expect(res.body.problems).toEqual([{ code: 'multiple-solutions', message: expect.stringMatching(/more than one solution/), cells: [expect.any(Number), expect.any(Number)] }])
+    expect((await db('puzzles').where({ id: res.body.id }).first())!.solution).toBeNull()
+  })
+
+  it('should save a draft without a solution', async () => {
+    const res = await as('owner').post(puzzles(), draftOf('PE01', { givens: withoutSolution(fixture('PE01')) }))
+    expect(res.status).toBe(201)
+    expect(res.body.check).toBe('no-solution')
+    expect(res.body.problems[0]).toMatchObject({ code: 'no-solution', message: expect.stringMatching(/no solution/) })
+  })
+
+  it('should save a draft that breaks the rules as invalid, with the engine messages and cells', async () => {
+    const givens = '11' + '.'.repeat(79)
+    const res = await as('owner').post(puzzles(), { title: 'Twins', givens, thermometers: [['r5c5']] })
+    expect(res.status).toBe(201)
+    expect(res.body.check).toBe('invalid')
+    expect(res.body.problems.map((p: { code: string }) => p.code).sort()).toEqual(['duplicate-given', 'thermometer-too-short'])
+    expect(res.body.problems.find((p: { code: string }) => p.code === 'duplicate-given').cells).toEqual([0, 1])
+  })
+
+  const invalid: { label: string; body: object; field: string; message: RegExp }[] = [
+    { label: 'givens of the wrong length', body: { givens: '123' }, field: 'body.givens', message: /81 characters/ },
+    { label: 'a letter in the givens', body: { givens: 'x' + '.'.repeat(80) }, field: 'body.givens', message: /each 1-9 or '\.'/ },
+    { label: 'a bad cell name', body: { thermometers: [['r1c1', 'r0c2']] }, field: 'body.thermometers.0.1', message: /named like r3c4/ },
+    { label: 'a link that is not an address', body: { link: 'my blog' }, field: 'body.link', message: /web address/ },
+    { label: 'a script link', body: { link: 'javascript:alert(1)' }, field: 'body.link', message: /web address/ },
+    { label: 'a date that does not exist', body: { publishedOn: '2026-02-30' }, field: 'body.publishedOn', message: /YYYY-MM-DD/ },
+    { label: 'a date in another format', body: { publishedOn: '30/11/2026' }, field: 'body.publishedOn', message: /YYYY-MM-DD/ },
+    { label: 'an empty title', body: { title: '  ' }, field: 'body.title', message: /title must not be empty/ },
+  ]
+  for (const { label, body, field, message } of invalid) {
+    it(`should answer 400 naming ${field} for ${label}`, async () => {
+      const res = await as('owner').post(puzzles(), { ...draftOf('PE01'), ...body })
+      expect(res.status).toBe(400)
+      expect(res.body.code).toBe('invalid-input')
+      expect(res.body.message).toMatch(new RegExp(`^${field.replaceAll('.', '\\.')}: `))
+      expect(res.body.message).toMatch(message)
+      expect(res.body.details[0].path).toBe(field)
+    })
+  }
+})
+
+describe('GET /api/channels/:channelId/puzzles', () => {
+  it('should list summaries, most recently saved first, with their outline counts', async () => {
+    const older = await create('PE02')
+    const newer = await create('GT13')
+    const res = await as('editor').get(puzzles())
+    expect(res.status).toBe(200)
+    const ids = res.body.map((p: { id: number }) => p.id)
+    expect(ids.indexOf(newer.id)).toBeLessThan(ids.indexOf(older.id))
+    expect(res.body.find((p: { id: number }) => p.id === newer.id)).toEqual({
+      id: newer.id,
+      channelId,
+      title: newer.title,
+      author: '',
+      check: 'unique',
+      outlineCount: 0,
+      version: 1,
+      updatedAt: newer.updatedAt,
+    })
+  })
+})
+
+describe('GET /api/channels/:channelId/puzzles/:puzzleId', () => {
+  it('should return the record as it was saved', async () => {
+    const saved = await create('WIKI1')
+    const res = await as('editor').get(`${puzzles()}/${saved.id}`)
+    expect(res.body).toEqual(saved)
+  })
+
+  it('should answer 400 for an id that is not a number', async () => {
+    const res = await as('owner').get(`${puzzles()}/first`)
+    expect(res.status).toBe(400)
+    expect(res.body.message).toBe('params.puzzleId: must be a positive whole number')
+  })
+
+  it('should answer 404 for a puzzle of another channel, even to its owner', async () => {
+    const elsewhere = await otherChannelOfOwner(db, demoEmail('owner'))
+    const foreign = await postPuzzle(app, tokens.owner!, elsewhere, draftOf('PE03'))
+    const path = `${puzzles()}/${foreign.id}`
+    for (const res of [
+      await as('owner').get(path),
+      await as('owner').put(path, { ...draftOf('PE03'), version: 1 }),
+      await as('owner').delete(path),
+    ]) {
+      expect(res.status).toBe(404)
+      expect(res.body.message).toBe('Puzzle not found')
+    }
+    expect(await db('puzzles').where({ id: foreign.id }).first()).toMatchObject({ title: foreign.title, version: 1 })
+  })
+})
+
+describe('PUT /api/channels/:channelId/puzzles/:puzzleId', () => {
+  it('should save a new version and check the puzzle again', async () => {
+    const saved = await create('PE01')
+    const res = await as('owner').put(`${puzzles()}/${saved.id}`, { ...draftOf('PE01'), givens: '.'.repeat(81), version: 1 })
+    expect(res.status).toBe(200)
+    expect(res.body).toMatchObject({ id: saved.id, version: 2, check: 'multiple-solutions', givens: '.'.repeat(81) })
+    expect((await db('puzzles').where({ id: saved.id }).first())!.solution).toBeNull()
+  })
+
+  it('should answer 409 with the current copy to the second of two people who read the same version, losing nothing', async () => {
+    const saved = await create('PE01')
+    const path = `${puzzles()}/${saved.id}`
+    const readByOwner = (await as('owner').get(path)).body
+    const readByPresenter = (await as('presenter').get(path)).body
+    expect(readByOwner.version).toBe(1)
+    expect(readByPresenter.version).toBe(1)
+
+    const first = await as('owner').put(path, { ...draftOf('PE01'), title: 'Owner title', notes: 'owner notes', version: readByOwner.version })
+    expect(first.status).toBe(200)
+    const second = await as('presenter').put(path, { ...draftOf('PE01'), title: 'Presenter title', version: readByPresenter.version })
+    expect(second.status).toBe(409)
+    expect(second.body).toMatchObject({ code: 'stale', message: expect.stringMatching(/^Someone saved a newer version/) })
+    expect(second.body.current).toEqual(first.body)
+    expect((await as('editor').get(path)).body).toEqual(first.body)
+
+    // the presenter saves again on top of the current version
+    const retry = await as('presenter').put(path, { ...draftOf('PE01'), title: 'Presenter title', notes: 'owner notes', version: second.body.current.version })
+    expect(retry.status).toBe(200)
+    expect(retry.body).toMatchObject({ title: 'Presenter title', notes: 'owner notes', version: 3 })
+  })
+
+  it('should require the version that was read', async () => {
+    const saved = await create('PE01')
+    const res = await as('owner').put(`${puzzles()}/${saved.id}`, draftOf('PE01'))
+    expect(res.status).toBe(400)
+    expect(res.body.message).toMatch(/^body\.version: /)
+  })
+})
+
+describe('DELETE /api/channels/:channelId/puzzles/:puzzleId', () => {
+  it('should remove the puzzle and its outlines', async () => {
+    const saved = await create('GT13')
+    await db('outlines').insert({ puzzle_id: saved.id, name: 'Take 1', status: 'solved', step_count: 0, total_ms: 0, document: db.raw("'{}'::jsonb") })
+    const res = await as('presenter').delete(`${puzzles()}/${saved.id}`)
+    expect(res.status).toBe(204)
+    expect((await as('owner').get(`${puzzles()}/${saved.id}`)).status).toBe(404)
+    expect(await db('outlines').where({ puzzle_id: saved.id })).toEqual([])
+  })
+})
