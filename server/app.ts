@@ -33,8 +33,19 @@ export function createApp({ db, config, logger, engine, clientDir = DEFAULT_CLIE
   const passport = createPassport(db, config.auth.jwtSecret)
 
   app.disable('x-powered-by')
-  app.use(helmet())
-  app.use(pinoHttp({ logger: logger ?? createLogger(config.log.level), autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }))
+  // served over plain http on loopback, so no upgrade of sub-requests to https
+  app.use(helmet({ contentSecurityPolicy: { directives: { upgradeInsecureRequests: null } } }))
+  app.use(
+    pinoHttp({
+      logger: logger ?? createLogger(config.log.level),
+      autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
+      // one short line per request: never headers (they carry tokens)
+      serializers: {
+        req: (req: { id: unknown; method: string; url: string }) => ({ id: req.id, method: req.method, url: req.url }),
+        res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
+      },
+    }),
+  )
   app.use(express.json({ limit: '1mb' }))
 
   app.use('/api/auth', authRoutes(db, config, passport))

@@ -78,7 +78,7 @@ export function useAutosave(options: AutosaveOptions) {
     baseline.value = record.outline
     opened = record.outline
     const local = readLocal()
-    if (!local || JSON.stringify(local.outline) === JSON.stringify(record.outline)) {
+    if (!local || sameData(local.outline, record.outline)) {
       removeLocal()
       status.value = 'saved'
       return record.outline
@@ -279,4 +279,15 @@ function serverCopyIn(error: unknown): OutlineRecord | null {
     if (parsed.success) return parsed.data
   }
   return null
+}
+
+/** Structural equality of JSON-like data, whatever order the keys came in. */
+function sameData(a: unknown, b: unknown): boolean {
+  if (a === b) return true
+  if (typeof a !== 'object' || typeof b !== 'object' || a === null || b === null) return false
+  if (Array.isArray(a) !== Array.isArray(b)) return false
+  const ka = Object.keys(a).filter((k) => (a as Record<string, unknown>)[k] !== undefined)
+  const kb = Object.keys(b).filter((k) => (b as Record<string, unknown>)[k] !== undefined)
+  if (ka.length !== kb.length) return false
+  return ka.every((k) => sameData((a as Record<string, unknown>)[k], (b as Record<string, unknown>)[k]))
 }

@@ -14,7 +14,7 @@ import { outlineFor } from '../helpers/studio-outline'
 function mountEditor(doc: Outline, currentLineId: number | null = null) {
   let editor!: OutlineEditor
   const Harness = defineComponent({
-    props: { current: { type: Number, default: null } },
+    props: { current: { type: [Number, null] as unknown as () => number | null, default: null } },
     setup(props) {
       editor = useOutlineEditor({ keyboard: true })
       editor.load(doc)
@@ -47,7 +47,7 @@ type Wrapper = VueWrapper
 const lineEls = (w: Wrapper) => w.findAll('article.line')
 const lineEl = (w: Wrapper, id: number) => w.find(`article[data-line="${id}"]`)
 const total = (w: Wrapper) => w.find('[data-testid="script-total"]').text()
-const button = (w: Wrapper, scope: ReturnType<Wrapper['find']>, text: string) => {
+const button = (scope: ReturnType<Wrapper['find']>, text: string) => {
   const found = scope.findAll('button').find((b) => b.text() === text || b.text().startsWith(text))
   if (!found) throw new Error(`no button "${text}"`)
   return found
@@ -133,14 +133,14 @@ describe('ScriptEditor with useOutlineEditor', () => {
     const first = doc.lines[idx]
     const second = doc.lines[idx + 1]
 
-    await button(wrapper, lineEl(wrapper, first.id), 'Join with next').trigger('click')
+    await button(lineEl(wrapper, first.id), 'Join with next').trigger('click')
     let lines = editor().outline.value!.lines
     expect(lines).toHaveLength(doc.lines.length - 1)
     expect(lines[idx].steps).toEqual([...first.steps, ...second.steps])
     expect(lineEl(wrapper, second.id).exists()).toBe(false)
 
     const stepCount = first.steps.length + second.steps.length
-    await button(wrapper, lineEl(wrapper, first.id), `Split into ${stepCount} lines`).trigger('click')
+    await button(lineEl(wrapper, first.id), `Split into ${stepCount} lines`).trigger('click')
     lines = editor().outline.value!.lines
     expect(lines).toHaveLength(doc.lines.length - 1 + stepCount - 1)
     expect(lines.slice(idx, idx + stepCount).map((l) => l.steps)).toEqual([...first.steps, ...second.steps].map((s) => [s]))
@@ -153,12 +153,12 @@ describe('ScriptEditor with useOutlineEditor', () => {
     const line = doc.lines[4]
     const fullTotal = timeline(doc).totalMs
 
-    await button(wrapper, lineEl(wrapper, line.id), 'Hide from video').trigger('click')
+    await button(lineEl(wrapper, line.id), 'Hide from video').trigger('click')
     expect(editor().outline.value!.lines[4].hidden).toBe(true)
     expect(total(wrapper)).toBe(formatClock(fullTotal - line.estMs))
     expect(lineEl(wrapper, line.id).text()).toContain('hidden from the video')
 
-    const show = button(wrapper, lineEl(wrapper, line.id), 'Show in video')
+    const show = button(lineEl(wrapper, line.id), 'Show in video')
     expect(show.attributes('aria-pressed')).toBe('true')
     await show.trigger('click')
     expect(editor().outline.value!.lines[4].hidden).toBe(false)
@@ -171,7 +171,7 @@ describe('ScriptEditor with useOutlineEditor', () => {
     const chapterLines = new Set(doc.chapters.map((c) => c.lineId))
     const line = doc.lines.find((l) => l.kind === 'step' && !chapterLines.has(l.id))!
 
-    await button(wrapper, lineEl(wrapper, line.id), 'Start chapter here').trigger('click')
+    await button(lineEl(wrapper, line.id), 'Start chapter here').trigger('click')
     expect(editor().outline.value!.chapters).toHaveLength(doc.chapters.length + 1)
     const heading = () => wrapper.find(`[data-chapter="${line.id}"]`)
     expect(heading().exists()).toBe(true)
@@ -200,7 +200,7 @@ describe('ScriptEditor with useOutlineEditor', () => {
     const redo = () => wrapper.findAll('button').find((b) => b.text() === 'Redo')!
     expect(undo().attributes('disabled')).toBeDefined()
 
-    await button(wrapper, lineEl(wrapper, line.id), 'Hide from video').trigger('click')
+    await button(lineEl(wrapper, line.id), 'Hide from video').trigger('click')
     const area = lineEl(wrapper, line.id).find('textarea')
     await area.setValue('We can place a 4 here.')
     await area.trigger('blur')

@@ -146,12 +146,12 @@ describe('POST /api/channels/:channelId/puzzles', () => {
   })
 
   it('should save a draft that breaks the rules as invalid, with the engine messages and cells', async () => {
-    const givens = '11' + '.'.repeat(79)
+    const givens = '1...1' + '.'.repeat(76) // the same digit twice in row 1, in two different boxes
     const res = await as('owner').post(puzzles(), { title: 'Twins', givens, thermometers: [['r5c5']] })
     expect(res.status).toBe(201)
     expect(res.body.check).toBe('invalid')
     expect(res.body.problems.map((p: { code: string }) => p.code).sort()).toEqual(['duplicate-given', 'thermometer-too-short'])
-    expect(res.body.problems.find((p: { code: string }) => p.code === 'duplicate-given').cells).toEqual([0, 1])
+    expect(res.body.problems.find((p: { code: string }) => p.code === 'duplicate-given').cells).toEqual([0, 4])
   })
 
   const invalid: { label: string; body: object; field: string; message: RegExp }[] = [

@@ -102,7 +102,9 @@ class Trial {
   private readonly digits = new Uint8Array(81)
   private readonly cand = new Uint16Array(81)
   /** move index that removed candidate (cell, digit), −1 when it was gone before the assumption */
-  private readonly remover = new Int16Array(81 * 9)
+  private readonly remover = new Int16Array(81 * 9).fill(-1)
+  /** remover entries set by the current trial, so the next one resets only those */
+  private readonly touched: number[] = []
   /** per house, digits that lost a place since they were last examined */
   private readonly houseDirty = new Uint16Array(27)
   private readonly thermoDirty: Uint8Array
@@ -120,10 +122,10 @@ class Trial {
   // in a trial follows from a change the trial made: only touched cells, houses and
   // thermometers need looking at.
   run(cell: Cell, digit: number, maxMoves: number): DeadEnd | null {
-    trialStats.runs++
     this.digits.set(this.board.digits)
     this.cand.set(this.board.cand)
-    this.remover.fill(-1)
+    for (const i of this.touched) this.remover[i] = -1
+    this.touched.length = 0
     this.houseDirty.fill(0)
     this.thermoDirty.fill(0)
     this.naked.length = 0
@@ -142,7 +144,12 @@ class Trial {
     if (!gone) return
     const left = this.cand[cell] & ~gone
     this.cand[cell] = left
-    for (let d = 0; d < 9; d++) if (gone & (1 << d)) this.remover[cell * 9 + d] = id
+    for (let d = 0; d < 9; d++) {
+      if (gone & (1 << d)) {
+        this.remover[cell * 9 + d] = id
+        this.touched.push(cell * 9 + d)
+      }
+    }
     if (!left) {
       if (!this.dead) this.dead = { emptyCell: cell, deps: this.removersOf(cell, ALL_DIGITS) }
       return
@@ -154,7 +161,6 @@ class Trial {
   }
 
   private place(cell: Cell, digit: number, link: ChainLink, deps: number[]): void {
-    trialStats.moves++
     const id = this.moves.push({ link, deps }) - 1
     const bit = 1 << (digit - 1)
     this.remove(cell, ALL_DIGITS & ~bit, id)
@@ -246,5 +252,3 @@ class Trial {
     return out
   }
 }
-
-export const trialStats = { runs: 0, moves: 0 }

@@ -1,0 +1,305 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import type { Express } from 'express'
+import type { Db } from '../../server/db/knex'
+import { makeOutline } from '../../server/services/outlines'
+import type { Engine, EnginePool } from '../../server/workers/engine-pool'
+import { parsePuzzle, solvePath } from '../../shared/engine/index'
+import { outlineSchema, type Outline } from '../../shared/schemas/outline'
+import type { OutlineRecord, PuzzleRecord } from '../../shared/schemas/studio'
+import { buildOutline, editLineText, hideLine, timeline } from '../../shared/script/index'
+import { ACTORS, buildTestApp, demoEmail, testEnginePool, tokensForAll, type Actor } from '../helpers/api'
+import { openTestDb, resetWithDemo } from '../helpers/db'
+import { draftOf, fixture, otherChannelOfOwner, postPuzzle, send } from '../helpers/studio'
+
+let db: Db
+let engine: EnginePool
+let app: Express
+let tokens: Record<Actor, string | undefined>
+let channelId: number
+let thermo: PuzzleRecord
+let first: OutlineRecord
+beforeAll(async () => {
+  db = await openTestDb()
+  await resetWithDemo(db)
+  engine = testEnginePool()
+  app = buildTestApp(db, engine)
+  tokens = await tokensForAll(app)
+  channelId = (await db('channels').where({ slug: 'marigold-logic' }).first())!.id
+  thermo = await postPuzzle(app, tokens.owner!, channelId, draftOf('GT13', { title: 'Four Fevers', author: 'Ilse Marchetti', link: 'https://puzzles.example/four-fevers' }))
+  first = (await as('presenter').post(outlinesOf(thermo.id), {})).body
+})
+afterAll(async () => {
+  await engine.destroy()
+  await db.destroy()
+})
+
+const as = (actor: Actor) => ({
+  get: (path: string) => send(app, tokens, actor, 'get', path),
+  post: (path: string, body: object) => send(app, tokens, actor, 'post', path, body),
+  patch: (path: string, body: object) => send(app, tokens, actor, 'patch', path, body),
+  delete: (path: string) => send(app, tokens, actor, 'delete', path),
+})
+const outlinesOf = (puzzleId: number) => `/api/channels/${channelId}/puzzles/${puzzleId}/outlines`
+const outlinePath = (id: number) => `/api/channels/${channelId}/outlines/${id}`
+
+/** A copy of the first outline, inserted directly (no engine run), for tests that change or delete it. */
+async function copyOfFirst(): Promise<OutlineRecord> {
+  const res = await as('owner').post(`${outlinePath(first.id)}/duplicate`, {})
+  if (res.status !== 201) throw new Error(`duplicate failed: ${res.status}`)
+  return res.body
+}
+
+const retitled = (o: Outline, text: string): Outline => editLineText(o, o.lines[1].id, text)
+
+describe('role matrix', () => {
+  const matrix: { label: string; expected: Record<Actor, number>; call: (actor: Actor) => Promise<{ status: number }> }[] = [
+    {
+      label: 'GET /puzzles/:puzzleId/outlines',
+      expected: { anonymous: 401, viewer: 403, editor: 200, presenter: 200, owner: 200 },
+      call: (actor) => as(actor).get(outlinesOf(thermo.id)),
+    },
+    {
+      label: 'POST /puzzles/:puzzleId/outlines',
+      expected: { anonymous: 401, viewer: 403, editor: 403, presenter: 201, owner: 201 },
+      call: (actor) => as(actor).post(outlinesOf(thermo.id), { name: `Take by ${actor}` }),
+    },
+    {
+      label: 'GET /outlines/:outlineId',
+      expected: { anonymous: 401, viewer: 403, editor: 200, presenter: 200, owner: 200 },
+      call: (actor) => as(actor).get(outlinePath(first.id)),
+    },
+    {
+      label: 'PATCH /outlines/:outlineId',
+      expected: { anonymous: 401, viewer: 403, editor: 200, presenter: 200, owner: 200 },
+      call: async (actor) => {
+        const copy = await copyOfFirst()
+        return as(actor).patch(outlinePath(copy.id), { version: copy.version, outline: retitled(copy.outline, `Edited by ${actor}.`) })
+      },
+    },
+    {
+      label: 'POST /outlines/:outlineId/duplicate',
+      expected: { anonymous: 401, viewer: 403, editor: 403, presenter: 201, owner: 201 },
+      call: (actor) => as(actor).post(`${outlinePath(first.id)}/duplicate`, {}),
+    },
+    {
+      label: 'DELETE /outlines/:outlineId',
+      expected: { anonymous: 401, viewer: 403, editor: 403, presenter: 204, owner: 204 },
+      call: async (actor) => as(actor).delete(outlinePath((await copyOfFirst()).id)),
+    },
+  ]
+  for (const { label, expected, call } of matrix) {
+    for (const actor of ACTORS) {
+      it(`${label} as ${actor} → ${expected[actor]}`, async () => {
+        expect((await call(actor)).status).toBe(expected[actor])
+      })
+    }
+  }
+})
+
+describe('POST /api/channels/:channelId/puzzles/:puzzleId/outlines', () => {
+  it('should store the engine path as a timed outline of the puzzle, with credits from the puzzle', () => {
+    expect(first).toMatchObject({ puzzleId: thermo.id, name: 'Take 1', status: 'solved', version: 1 })
+    expect(outlineSchema.safeParse(first.outline).success).toBe(true)
+    expect(first.stepCount).toBe(first.outline.steps.length)
+    expect(first.totalMs).toBe(Math.round(timeline(first.outline).totalMs))
+    expect(first.totalMs).toBeGreaterThan(0)
+    expect(first.outline).toMatchObject({
+      title: 'Four Fevers',
+      author: 'Ilse Marchetti',
+      link: 'https://puzzles.example/four-fevers',
+      puzzle: { givens: fixture('GT13').givens },
+    })
+  })
+
+  it('should give the same document the engine and script produce when called directly', async () => {
+    const file = { title: 'Four Fevers', author: 'Ilse Marchetti', givens: thermo.givens, thermometers: thermo.thermometers }
+    const direct = buildOutline(parsePuzzle(file).puzzle!, solvePath(file), { link: 'https://puzzles.example/four-fevers' })
+    expect(first.outline).toEqual(direct)
+  })
+
+  it('should apply the pace, naming style and name asked for', async () => {
+    const res = await as('owner').post(outlinesOf(thermo.id), { name: 'Quick take', pace: 220, names: 'coords' })
+    expect(res.status).toBe(201)
+    expect(res.body).toMatchObject({ name: 'Quick take', outline: { pace: 220, names: 'coords' } })
+    expect(res.body.outline.lines.some((l: { text: string }) => /r\dc\d/.test(l.text))).toBe(true)
+    expect(res.body.totalMs).toBeLessThan(first.totalMs)
+  })
+
+  it('should answer 400 for a pace outside the range', async () => {
+    const res = await as('owner').post(outlinesOf(thermo.id), { pace: 900 })
+    expect(res.status).toBe(400)
+    expect(res.body.message).toBe('body.pace: pace must be at most 400 words a minute')
+  })
+
+  it('should answer 422 for a puzzle with more than one solution', async () => {
+    const open = await postPuzzle(app, tokens.owner!, channelId, draftOf('PE01', { givens: '.'.repeat(81) }))
+    const res = await as('owner').post(outlinesOf(open.id), {})
+    expect(res.status).toBe(422)
+    expect(res.body).toMatchObject({ code: 'puzzle-not-unique', message: 'Fix the puzzle first: it has more than one solution' })
+    expect(await db('outlines').where({ puzzle_id: open.id })).toEqual([])
+  })
+
+  it('should store a path that gets stuck, with status stuck', async () => {
+    // the fixtures all solve, so the engine here stops after ten steps, as it would on a harder puzzle
+    const stopsEarly: Engine = {
+      check: () => Promise.reject(new Error('not used')),
+      outline: async (task) => {
+        const parsed = parsePuzzle(task.puzzle).puzzle!
+        const full = solvePath(parsed)
+        return buildOutline(parsed, { ...full, status: 'stuck', steps: full.steps.slice(0, 10) })
+      },
+    }
+    const owner = await db('users').where({ email: demoEmail('owner') }).first()
+    const stuck = await makeOutline(db, stopsEarly, channelId, thermo.id, {}, { id: owner!.id, email: owner!.email, name: owner!.name })
+    expect(stuck).toMatchObject({ status: 'stuck', stepCount: 10 })
+    const res = await as('editor').get(outlinePath(stuck.id))
+    expect(res.body).toMatchObject({ status: 'stuck', outline: { status: 'stuck' } })
+    expect(res.body.outline.lines.at(-1).text).toMatch(/\[finish the solve here\]/)
+  })
+
+  it('should start the engine threads again after the pool was destroyed', async () => {
+    await engine.destroy()
+    const again = await as('owner').post(outlinesOf(thermo.id), { name: 'After restart' })
+    expect(again.status).toBe(201)
+    expect(again.body.outline.steps).toEqual(first.outline.steps)
+  })
+})
+
+describe('GET /api/channels/:channelId/puzzles/:puzzleId/outlines', () => {
+  it('should list summaries without documents, oldest first', async () => {
+    const res = await as('editor').get(outlinesOf(thermo.id))
+    expect(res.status).toBe(200)
+    expect(res.body[0]).toEqual({
+      id: first.id,
+      puzzleId: thermo.id,
+      name: 'Take 1',
+      status: 'solved',
+      stepCount: first.stepCount,
+      totalMs: first.totalMs,
+      version: expect.any(Number),
+      updatedAt: expect.any(String),
+    })
+    const ids = res.body.map((o: { id: number }) => o.id)
+    expect(ids).toEqual([...ids].sort((a, b) => a - b))
+  })
+
+  it('should count outlines on the puzzle', async () => {
+    const res = await as('editor').get(`/api/channels/${channelId}/puzzles/${thermo.id}`)
+    expect(res.body.outlineCount).toBe((await db('outlines').where({ puzzle_id: thermo.id })).length)
+  })
+})
+
+describe('PATCH /api/channels/:channelId/outlines/:outlineId', () => {
+  it('should save edited lines and work out the total time again', async () => {
+    const copy = await copyOfFirst()
+    const edited = hideLine(retitled(copy.outline, 'A shorter line.'), copy.outline.lines[2].id)
+    const res = await as('editor').patch(outlinePath(copy.id), { version: 1, name: 'Tight cut', outline: edited })
+    expect(res.status).toBe(200)
+    expect(res.body).toMatchObject({ id: copy.id, name: 'Tight cut', version: 2, totalMs: Math.round(timeline(edited).totalMs) })
+    expect(res.body.totalMs).toBeLessThan(copy.totalMs)
+    expect(res.body.outline.lines[1]).toMatchObject({ text: 'A shorter line.', edited: true })
+    expect((await as('owner').get(outlinePath(copy.id))).body).toEqual(res.body)
+  })
+
+  it('should accept the document back unchanged', async () => {
+    const copy = await copyOfFirst()
+    const res = await as('editor').patch(outlinePath(copy.id), { version: 1, outline: copy.outline })
+    expect(res.status).toBe(200)
+    expect(res.body.outline).toEqual(copy.outline)
+  })
+
+  it('should answer 400 when the engine steps were changed', async () => {
+    const copy = await copyOfFirst()
+    const steps = copy.outline.steps.map((s, i) => (i === 0 ? { ...s, difficulty: s.difficulty + 1 } : s))
+    const res = await as('owner').patch(outlinePath(copy.id), { version: 1, outline: { ...copy.outline, steps } })
+    expect(res.status).toBe(400)
+    expect(res.body).toMatchObject({ code: 'steps-changed', message: "The engine steps of an outline can't be changed; edit the lines instead" })
+    expect((await as('owner').get(outlinePath(copy.id))).body).toEqual(copy)
+  })
+
+  it('should answer 400 when the puzzle inside the outline was changed', async () => {
+    const copy = await copyOfFirst()
+    const puzzle = { ...copy.outline.puzzle, thermometers: copy.outline.puzzle.thermometers.slice(1) }
+    const res = await as('owner').patch(outlinePath(copy.id), { version: 1, outline: { ...copy.outline, puzzle } })
+    expect(res.status).toBe(400)
+    expect(res.body.code).toBe('puzzle-changed')
+  })
+
+  it('should answer 400 for a document whose lines no longer cover the steps', async () => {
+    const copy = await copyOfFirst()
+    const lines = copy.outline.lines.filter((_, i) => i !== 1)
+    const res = await as('owner').patch(outlinePath(copy.id), { version: 1, outline: { ...copy.outline, lines } })
+    expect(res.status).toBe(400)
+    expect(res.body.message).toMatch(/^body\.outline: /)
+  })
+
+  it('should answer 409 with the current copy to the second of two people who read the same version, losing nothing', async () => {
+    const copy = await copyOfFirst()
+    const readByEditor: OutlineRecord = (await as('editor').get(outlinePath(copy.id))).body
+    const readByPresenter: OutlineRecord = (await as('presenter').get(outlinePath(copy.id))).body
+    expect([readByEditor.version, readByPresenter.version]).toEqual([1, 1])
+
+    const firstSave = await as('editor').patch(outlinePath(copy.id), { version: 1, outline: retitled(readByEditor.outline, 'The editor was here.') })
+    expect(firstSave.status).toBe(200)
+    const secondSave = await as('presenter').patch(outlinePath(copy.id), { version: 1, outline: retitled(readByPresenter.outline, 'The presenter was here.') })
+    expect(secondSave.status).toBe(409)
+    expect(secondSave.body).toMatchObject({ code: 'stale', message: expect.stringMatching(/^Someone saved a newer version/) })
+    expect(secondSave.body.current).toEqual(firstSave.body)
+    expect((await as('owner').get(outlinePath(copy.id))).body).toEqual(firstSave.body)
+
+    const retry = await as('presenter').patch(outlinePath(copy.id), {
+      version: secondSave.body.current.version,
+      outline: editLineText(secondSave.body.current.outline, readByPresenter.outline.lines[2].id, 'The presenter was here.'),
+    })
+    expect(retry.status).toBe(200)
+    expect(retry.body.outline.lines[1].text).toBe('The editor was here.')
+    expect(retry.body.outline.lines[2].text).toBe('The presenter was here.')
+  })
+})
+
+describe('POST /api/channels/:channelId/outlines/:outlineId/duplicate', () => {
+  it('should make a new outline with the same document', async () => {
+    const res = await as('presenter').post(`${outlinePath(first.id)}/duplicate`, {})
+    expect(res.status).toBe(201)
+    expect(res.body.id).not.toBe(first.id)
+    expect(res.body).toMatchObject({ puzzleId: thermo.id, name: 'Take 1 (copy)', version: 1, stepCount: first.stepCount, totalMs: first.totalMs })
+    expect(res.body.outline).toEqual((await as('owner').get(outlinePath(first.id))).body.outline)
+  })
+})
+
+describe('DELETE /api/channels/:channelId/outlines/:outlineId', () => {
+  it('should remove the outline', async () => {
+    const copy = await copyOfFirst()
+    expect((await as('owner').delete(outlinePath(copy.id))).status).toBe(204)
+    expect((await as('owner').get(outlinePath(copy.id))).status).toBe(404)
+    expect((await as('owner').delete(outlinePath(copy.id))).status).toBe(404)
+  })
+})
+
+describe('outlines of another channel', () => {
+  it('should answer 404 for its puzzles and outlines, even to an owner of both channels', async () => {
+    const elsewhere = await otherChannelOfOwner(db, demoEmail('owner'))
+    const puzzle = await postPuzzle(app, tokens.owner!, elsewhere, draftOf('GT13'))
+    const created = await send(app, tokens, 'owner', 'post', `/api/channels/${elsewhere}/puzzles/${puzzle.id}/outlines`, {})
+    expect(created.status).toBe(201)
+    const foreign: OutlineRecord = created.body
+    const attempts = [
+      await as('owner').get(outlinesOf(puzzle.id)),
+      await as('owner').post(outlinesOf(puzzle.id), {}),
+      await as('owner').get(outlinePath(foreign.id)),
+      await as('owner').patch(outlinePath(foreign.id), { version: 1, outline: foreign.outline }),
+      await as('owner').post(`${outlinePath(foreign.id)}/duplicate`, {}),
+      await as('owner').delete(outlinePath(foreign.id)),
+    ]
+    expect(attempts.map((r) => r.status)).toEqual([404, 404, 404, 404, 404, 404])
+    expect(attempts.map((r) => r.body.message)).toEqual([
+      'Puzzle not found',
+      'Puzzle not found',
+      'Outline not found',
+      'Outline not found',
+      'Outline not found',
+      'Outline not found',
+    ])
+    expect(await db('outlines').where({ puzzle_id: puzzle.id })).toHaveLength(1)
+  })
+})
