@@ -10,7 +10,7 @@ const alias = {
 }
 
 export default defineConfig({
-  plugins: [vue(), Components({ dts: false, resolvers: [PrimeVueResolver()] })],
+  plugins: [vue(), Components({ dts: 'src/components.d.ts', dirs: [], resolvers: [PrimeVueResolver()] })],
   resolve: { alias },
   server: { proxy: { '/api': 'http://127.0.0.1:5180' } },
   build: { outDir: 'dist', chunkSizeWarningLimit: 800 },

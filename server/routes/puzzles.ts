@@ -8,12 +8,6 @@ import { idParams, validate } from '../middleware/validate'
 import { addPuzzle, puzzleOf, puzzlesOf, removePuzzle, savePuzzle } from '../services/puzzles'
 import type { Engine } from '../workers/engine-pool'
 
-// z.url() also accepts javascript: and data: addresses, which a page would happily put in an href
-const webLinkOnly = (body: { link?: string }) => !body.link || /^https?:\/\//i.test(body.link)
-const webLink = { path: ['link'], message: 'link must be a web address (https://…)' }
-const draftBody = puzzleDraftSchema.refine(webLinkOnly, webLink)
-const updateBody = puzzleUpdateSchema.refine(webLinkOnly, webLink)
-
 type ChannelParams = { channelId: number }
 type PuzzleParams = ChannelParams & { puzzleId: number }
 
@@ -30,7 +24,7 @@ export function puzzleRoutes(db: Db, passport: JwtPassport, engine: Engine): Rou
     const { channelId } = res.locals.params as ChannelParams
     res.json(await puzzlesOf(db, channelId))
   })
-  router.post('/', signedIn, makers, validate({ params: channel, body: draftBody }), async (req, res) => {
+  router.post('/', signedIn, makers, validate({ params: channel, body: puzzleDraftSchema }), async (req, res) => {
     const { channelId } = res.locals.params as ChannelParams
     res.status(201).json(await addPuzzle(db, engine, channelId, res.locals.body as PuzzleDraft, req.user!))
   })
@@ -38,7 +32,7 @@ export function puzzleRoutes(db: Db, passport: JwtPassport, engine: Engine): Rou
     const { channelId, puzzleId } = res.locals.params as PuzzleParams
     res.json(await puzzleOf(db, channelId, puzzleId))
   })
-  router.put('/:puzzleId', signedIn, makers, validate({ params: puzzle, body: updateBody }), async (_req, res) => {
+  router.put('/:puzzleId', signedIn, makers, validate({ params: puzzle, body: puzzleUpdateSchema }), async (_req, res) => {
     const { channelId, puzzleId } = res.locals.params as PuzzleParams
     res.json(await savePuzzle(db, engine, channelId, puzzleId, res.locals.body as PuzzleUpdate))
   })

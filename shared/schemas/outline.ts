@@ -121,7 +121,7 @@ export const outlineSchema = z
     version: z.literal(1),
     title: z.string().min(1),
     author: z.string().optional(),
-    link: z.string().optional(),
+    link: z.union([z.url({ protocol: /^https?$/, message: 'link must be a web address (https://…)' }), z.literal('')]).optional(),
     pace,
     names: namingStyleSchema,
     targetMs: z.int().min(1).optional(),

@@ -22,7 +22,8 @@ import { namingStyleSchema, outlineSchema, PACE_MAX, PACE_MIN } from './outline'
 export const puzzleDraftSchema = puzzleFileShape.extend({
   givens: z.string().regex(/^[1-9.0]{81}$/, "givens must be 81 characters, each 1-9 or '.'"),
   thermometers: z.array(z.array(z.string().regex(/^[rR][1-9][cC][1-9]$/, 'cells are named like r3c4')).max(81)).max(81).default([]),
-  link: z.union([z.url({ message: 'link must be a web address (https://…)' }), z.literal('')]).optional(),
+  // only http(s): a javascript: or data: address would run when a page puts it in an href
+  link: z.union([z.url({ protocol: /^https?$/, message: 'link must be a web address (https://…)' }), z.literal('')]).optional(),
   publishedOn: z.union([z.iso.date({ message: 'publication date must be YYYY-MM-DD' }), z.literal('')]).optional(),
   notes: z.string().max(5000, 'notes are longer than 5000 characters').optional(),
 })

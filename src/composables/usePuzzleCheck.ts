@@ -44,12 +44,17 @@ export function checkPuzzle(givens: ArrayLike<number>, thermometers: number[][])
  */
 export function usePuzzleCheck(options: PuzzleCheckOptions) {
   const delay = options.delay ?? 250
+  // The inputs last checked: a flush() right after an edit makes the watcher's later call a no-op.
+  let checkedGivens: ArrayLike<number> | undefined
+  let checkedThermometers: number[][] | undefined
   const result = shallowRef<PuzzleCheckResult>(run())
   const pending = shallowRef(false)
   let timer: ReturnType<typeof setTimeout> | undefined
 
   function run(): PuzzleCheckResult {
-    return checkPuzzle(toValue(options.givens), toValue(options.thermometers))
+    checkedGivens = toValue(options.givens)
+    checkedThermometers = toValue(options.thermometers)
+    return checkPuzzle(checkedGivens, checkedThermometers)
   }
 
   /** Checks now (e.g. right before saving), cancelling a waiting check. */
@@ -60,7 +65,8 @@ export function usePuzzleCheck(options: PuzzleCheckOptions) {
     return result.value
   }
 
-  watch([() => toValue(options.givens), () => toValue(options.thermometers)], () => {
+  watch([() => toValue(options.givens), () => toValue(options.thermometers)], ([givens, thermometers]) => {
+    if (givens === checkedGivens && thermometers === checkedThermometers) return
     clearTimeout(timer)
     pending.value = true
     timer = setTimeout(flush, delay)

@@ -1,5 +1,6 @@
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest'
 import { defineComponent, h } from 'vue'
+import type { PropType } from 'vue'
 import { flushPromises, mount } from '@vue/test-utils'
 import type { VueWrapper } from '@vue/test-utils'
 import PrimeVue from 'primevue/config'
@@ -14,7 +15,7 @@ import { outlineFor } from '../helpers/studio-outline'
 function mountEditor(doc: Outline, currentLineId: number | null = null) {
   let editor!: OutlineEditor
   const Harness = defineComponent({
-    props: { current: { type: [Number, null] as unknown as () => number | null, default: null } },
+    props: { current: { type: Number as PropType<number | null>, default: null } },
     setup(props) {
       editor = useOutlineEditor({ keyboard: true })
       editor.load(doc)

@@ -30,10 +30,10 @@ describe('migrations', () => {
   it('should run up, all the way down and up again on an empty database', async () => {
     await scratch.migrate.latest()
     const tables = await appTables()
-    expect(tables).toEqual(expect.arrayContaining(['channels', 'memberships', 'users']))
+    expect(tables).toEqual(expect.arrayContaining(['channels', 'memberships', 'outlines', 'puzzles', 'users']))
     await scratch.migrate.rollback(undefined, true)
     expect(await appTables()).toEqual([])
-    const types = await scratch.raw("select typname from pg_type where typname = 'channel_role'")
+    const types = await scratch.raw("select typname from pg_type where typname in ('channel_role', 'puzzle_check', 'outline_status')")
     expect(types.rows).toEqual([])
     await scratch.migrate.latest()
     expect(await appTables()).toEqual(tables)
