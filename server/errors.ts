@@ -6,8 +6,6 @@ export class HttpError extends Error {
     readonly code: string,
     message: string,
     readonly details?: unknown,
-    /** extra top-level fields of the response body, e.g. `current` on a 409 */
-    readonly extra?: Record<string, unknown>,
   ) {
     super(message)
     this.name = 'HttpError'
@@ -24,6 +22,5 @@ export const stale = (what: string, current: unknown) =>
     409,
     'stale',
     `Someone saved a newer version of this ${what} while you were editing. Nothing of yours was overwritten: compare with the current copy and save again.`,
-    undefined,
     { current },
   )

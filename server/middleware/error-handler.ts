@@ -8,7 +8,7 @@ export const unknownRoute: RequestHandler = (req, _res, next) =>
 export const errorHandler: ErrorRequestHandler = (error, req, res, _next) => {
   const known = toHttpError(error)
   if (known) {
-    res.status(known.status).json({ ...known.extra, code: known.code, message: known.message, details: known.details })
+    res.status(known.status).json({ code: known.code, message: known.message, details: known.details })
     return
   }
   req.log?.error({ err: error }, 'unhandled error')

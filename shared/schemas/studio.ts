@@ -96,5 +96,5 @@ export type OutlineSave = z.infer<typeof outlineSaveSchema>
 export interface StaleBody<T> {
   code: 'stale'
   message: string
-  current: T
+  details: { current: T }
 }

@@ -13,7 +13,7 @@ declare module 'vue-router' {
   }
 }
 
-export type RouteName = 'sign-in' | 'home' | 'library' | 'channel' | 'channel-members' | 'puzzle' | 'studio' | 'not-found'
+export type RouteName = 'sign-in' | 'home' | 'library' | 'channel-members' | 'puzzle' | 'studio' | 'not-found'
 
 /** Why the guard sent someone to the home page instead of where they asked to go. */
 export type HomeNotice = 'forbidden' | 'access-unchecked'
@@ -37,8 +37,6 @@ export const routes: RouteRecordRaw[] = [
     props: (route) => ({ channelId: Number(route.params.channelId) }),
     meta: { requiresAuth: true, roles: anyMember },
   },
-  // The channel's main screen is now the Library; the old name stays so existing links keep working.
-  { path: '/channels/:channelId(\\d+)/home', name: 'channel', redirect: (to) => ({ name: 'library', params: { channelId: to.params.channelId } }) },
   {
     path: '/channels/:channelId(\\d+)/puzzles/:puzzleId(\\d+|new)',
     name: 'puzzle',

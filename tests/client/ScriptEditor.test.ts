@@ -80,18 +80,34 @@ describe('ScriptEditor with useOutlineEditor', () => {
     wrapper.unmount()
   })
 
-  it('should mark the current line and bring it into view', async () => {
-    const scroll = vi.fn()
-    Element.prototype.scrollIntoView = scroll
+  it('should mark the current line and scroll the script pane (not the page) to it', async () => {
     const { wrapper } = mountEditor(doc, doc.lines[0].id)
     expect(lineEl(wrapper, doc.lines[0].id).attributes('aria-current')).toBe('step')
+    const pane = wrapper.find('.script__lines').element as HTMLElement
+    const scrollTo = vi.fn()
+    pane.scrollTo = scrollTo as typeof pane.scrollTo
+    Object.defineProperty(pane, 'clientHeight', { value: 400 })
     const target = doc.lines[10]
+    const el = lineEl(wrapper, target.id).element as HTMLElement
+    Object.defineProperty(el, 'offsetTop', { value: 1200 })
+    Object.defineProperty(el, 'offsetHeight', { value: 100 })
+
     await wrapper.setProps({ current: target.id })
     await flushPromises()
     expect(lineEl(wrapper, target.id).attributes('aria-current')).toBe('step')
     expect(lineEl(wrapper, doc.lines[0].id).attributes('aria-current')).toBeUndefined()
-    expect(scroll).toHaveBeenCalled()
-    expect(scroll.mock.contexts.at(-1)).toBe(lineEl(wrapper, target.id).element)
+    // Brought up from below: its bottom edge lands a margin above the pane's bottom.
+    expect(scrollTo).toHaveBeenCalledWith(expect.objectContaining({ top: 1200 + 100 - 400 + 48 }))
+
+    // A line already in view doesn't move the script.
+    scrollTo.mockClear()
+    const near = lineEl(wrapper, doc.lines[11].id).element as HTMLElement
+    Object.defineProperty(pane, 'scrollTop', { value: 1000, configurable: true })
+    Object.defineProperty(near, 'offsetTop', { value: 1100 })
+    Object.defineProperty(near, 'offsetHeight', { value: 100 })
+    await wrapper.setProps({ current: doc.lines[11].id })
+    await flushPromises()
+    expect(scrollTo).not.toHaveBeenCalled()
     wrapper.unmount()
   })
 

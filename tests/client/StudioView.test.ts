@@ -21,7 +21,6 @@ describe('StudioView', { timeout: 20_000 }, () => {
   beforeEach(() => {
     localStorage.clear()
     document.body.innerHTML = ''
-    Element.prototype.scrollIntoView = vi.fn()
   })
   afterEach(() => vi.unstubAllGlobals())
 

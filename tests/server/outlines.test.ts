@@ -244,12 +244,12 @@ describe('PATCH /api/channels/:channelId/outlines/:outlineId', () => {
     const secondSave = await as('presenter').patch(outlinePath(copy.id), { version: 1, outline: retitled(readByPresenter.outline, 'The presenter was here.') })
     expect(secondSave.status).toBe(409)
     expect(secondSave.body).toMatchObject({ code: 'stale', message: expect.stringMatching(/^Someone saved a newer version/) })
-    expect(secondSave.body.current).toEqual(firstSave.body)
+    expect(secondSave.body.details.current).toEqual(firstSave.body)
     expect((await as('owner').get(outlinePath(copy.id))).body).toEqual(firstSave.body)
 
     const retry = await as('presenter').patch(outlinePath(copy.id), {
-      version: secondSave.body.current.version,
-      outline: editLineText(secondSave.body.current.outline, readByPresenter.outline.lines[2].id, 'The presenter was here.'),
+      version: secondSave.body.details.current.version,
+      outline: editLineText(secondSave.body.details.current.outline, readByPresenter.outline.lines[2].id, 'The presenter was here.'),
     })
     expect(retry.status).toBe(200)
     expect(retry.body.outline.lines[1].text).toBe('The editor was here.')

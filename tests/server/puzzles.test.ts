@@ -248,11 +248,11 @@ describe('PUT /api/channels/:channelId/puzzles/:puzzleId', () => {
     const second = await as('presenter').put(path, { ...draftOf('PE01'), title: 'Presenter title', version: readByPresenter.version })
     expect(second.status).toBe(409)
     expect(second.body).toMatchObject({ code: 'stale', message: expect.stringMatching(/^Someone saved a newer version/) })
-    expect(second.body.current).toEqual(first.body)
+    expect(second.body.details.current).toEqual(first.body)
     expect((await as('editor').get(path)).body).toEqual(first.body)
 
     // the presenter saves again on top of the current version
-    const retry = await as('presenter').put(path, { ...draftOf('PE01'), title: 'Presenter title', notes: 'owner notes', version: second.body.current.version })
+    const retry = await as('presenter').put(path, { ...draftOf('PE01'), title: 'Presenter title', notes: 'owner notes', version: second.body.details.current.version })
     expect(retry.status).toBe(200)
     expect(retry.body).toMatchObject({ title: 'Presenter title', notes: 'owner notes', version: 3 })
   })

@@ -1,24 +1,36 @@
 /**
- * Short contradiction: assume one candidate, follow singles and thermometer bounds for a
- * bounded number of moves, and when a cell or a house is left without an option, the assumed
- * candidate is false. Only the moves that lead to the dead end are kept in the chain, so the
- * script can read it aloud. Expensive, so the solve loop tries it last.
+ * Short contradiction, the last resort: assume one candidate, follow singles and thermometer
+ * bounds round by round (everything the assumption allows at once, then what that allows, and so
+ * on), and when a cell or a house is left without an option, the assumed candidate is false.
+ * Only the moves that lead to the dead end are kept in the chain, so the script can read it aloud.
+ *
+ * The search is staged by depth (rounds of moves): every candidate is tried shallow first, and
+ * only when no candidate fails there is it tried deeper. The final stage follows an assumption
+ * until nothing more follows (at most one move per candidate of the grid, so still bounded); it
+ * runs only when every shallower stage found nothing. Shortest chain wins, then the assumption
+ * nearest the previous focus. All trial state lives in typed arrays reused across trials: a trial
+ * allocates nothing until it beats the best chain so far.
  */
-import { ALL_DIGITS, CELL_HOUSES, HOUSES, PEERS, POPCOUNT, digitsOf, houseRef, lowestDigit } from '../geometry'
+import { ALL_DIGITS, CELL_HOUSES, HOUSES, PEERS, POPCOUNT, digitsAbove, digitsBelow, digitsOf, highestDigit, houseRef, lowestDigit } from '../geometry'
 import type { Board } from '../board'
 import type { Cell, ChainLink, HouseRef } from '../types'
 import { distance, type Technique } from './deduction'
 import { TECHNIQUES } from './catalog'
-import { boundRuns } from './thermo-bounds'
 
-/** Move budgets tried in turn; the last is the most moves followed after one assumption. */
-const BUDGETS = [4, 10, 30]
+/** Rounds followed after an assumption, stage by stage; Infinity = until nothing more follows. */
+const STAGES = [2, 4, 8, Infinity]
 
-interface Move {
-  link: ChainLink
-  /** indexes of earlier moves this one relies on */
-  deps: number[]
-}
+/** Every move but a placement removes a candidate, and each cell is placed once: 729 + 81 + the assumption. */
+const MAX_MOVES = 81 * 10 + 1
+/** Each move relies on at most 9 earlier ones per cell it reads (one cell, or eight house cells). */
+const MAX_DEPS = MAX_MOVES * 9 + 16
+
+// move kinds and the simple techniques a trial follows
+const PLACE = 0
+const ELIMINATE = 1
+const NAKED = 0
+const HIDDEN = 1
+const BOUNDS = 2
 
 interface DeadEnd {
   cell: Cell
@@ -30,42 +42,73 @@ interface DeadEnd {
 
 /**
  * Assumptions that failed last time, per board: they usually still fail, and trying them first
- * gives a short chain early, which caps every later trial's budget.
+ * gives a short chain early, which caps the depth of every later trial.
  */
 const remembered = new WeakMap<Board, number[]>()
 
 export const contradiction: Technique = {
   find(board, near) {
+    const trial = Trial.for(board)
     let best: DeadEnd | null = null
+    let bestLength = Infinity
     let bestDistance = Infinity
     const failed: number[] = []
-    const trial = new Trial(board)
-    const consider = (cell: Cell, digit: number, budget: number) => {
-      const found = trial.run(cell, digit, best ? Math.min(budget, best.chain.length) : budget)
-      if (!found) return
+    const tried = new Uint8Array(729)
+    const consider = (cell: Cell, digit: number, depth: number) => {
+      const length = trial.run(cell, digit, Math.min(depth, bestLength))
+      if (length < 0) return
       failed.push(cell * 9 + digit - 1)
+      const score = length + (opens(board, cell, digit) ? 0 : PENALTY)
       const d = distance([cell], near)
-      if (!best || found.chain.length < best.chain.length || (found.chain.length === best.chain.length && d < bestDistance)) {
-        best = found
+      if (score < bestLength || (score === bestLength && d < bestDistance)) {
+        best = trial.deadEnd(cell, digit)
+        bestLength = score
         bestDistance = d
       }
     }
-    for (const key of remembered.get(board) ?? []) {
-      const cell = (key / 9) | 0
-      if (!board.digits[cell] && board.cand[cell] & (1 << key % 9)) consider(cell, (key % 9) + 1, BUDGETS[BUDGETS.length - 1])
-    }
-    // Cells with fewest candidates first: "if this were a 3" reads best on a two-way cell.
+    // Cells with fewest candidates first ("if this were a 3" reads best on a two-way cell), then nearest.
     const order: Cell[] = []
     for (let c = 0; c < 81; c++) if (!board.digits[c]) order.push(c)
-    order.sort((a, b) => POPCOUNT[board.cand[a]] - POPCOUNT[board.cand[b]] || a - b)
-    // Short budgets first: most dead ends are near, and a failed deep trial costs the most.
-    for (const budget of BUDGETS) {
-      for (const cell of order) for (const digit of digitsOf(board.cand[cell])) consider(cell, digit, budget)
+    const near9 = order.map((c) => distance([c], near))
+    const rank = new Uint8Array(81)
+    order.forEach((c, i) => (rank[c] = near9[i]))
+    order.sort((a, b) => POPCOUNT[board.cand[a]] - POPCOUNT[board.cand[b]] || rank[a] - rank[b] || a - b)
+    const previous = (remembered.get(board) ?? []).filter((key) => !board.digits[(key / 9) | 0] && board.cand[(key / 9) | 0] & (1 << key % 9))
+    for (const depth of STAGES) {
+      tried.fill(0)
+      for (const key of previous) {
+        tried[key] = 1
+        consider((key / 9) | 0, (key % 9) + 1, depth)
+      }
+      for (const cell of order) {
+        let m = board.cand[cell]
+        while (m) {
+          const bit = m & -m
+          m ^= bit
+          const digit = lowestDigit(bit)
+          if (!tried[cell * 9 + digit - 1]) consider(cell, digit, depth)
+        }
+      }
       if (best) break
     }
     remembered.set(board, failed)
     return best ? toDeduction(best) : null
   },
+}
+
+const PENALTY = Number(process.env.PEN ?? 0)
+/** True when removing the digit leaves a single behind: a two-way cell, or a digit with two places in a house. */
+function opens(board: Board, cell: Cell, digit: number): boolean {
+  if (POPCOUNT[board.cand[cell]] === 2) return true
+  const bit = 1 << (digit - 1)
+  const houses = CELL_HOUSES[cell]
+  for (let k = 0; k < 3; k++) {
+    let count = 0
+    const cells = HOUSES[houses[k]]
+    for (let i = 0; i < 9; i++) if (!board.digits[cells[i]] && board.cand[cells[i]] & bit) count++
+    if (count === 2) return true
+  }
+  return false
 }
 
 function toDeduction(dead: DeadEnd) {
@@ -97,46 +140,264 @@ function toDeduction(dead: DeadEnd) {
   }
 }
 
-/** One assumption followed on a scratch copy of the grid, remembering who removed each candidate. */
+/**
+ * One assumption followed on a scratch copy of the grid, remembering which move removed each
+ * candidate. Moves are records in parallel typed arrays; the moves each relies on sit in one
+ * shared pool. A single instance serves every trial (the engine is single-threaded per isolate).
+ */
 class Trial {
+  private static shared: Trial | null = null
+
+  private board!: Board
   private readonly digits = new Uint8Array(81)
   private readonly cand = new Uint16Array(81)
-  /** move index that removed candidate (cell, digit), −1 when it was gone before the assumption */
+  /** move that removed candidate (cell, digit), −1 when it was gone before the assumption */
   private readonly remover = new Int16Array(81 * 9).fill(-1)
   /** remover entries set by the current trial, so the next one resets only those */
-  private readonly touched: number[] = []
-  /** per house, digits that lost a place since they were last examined */
-  private readonly houseDirty = new Uint16Array(27)
-  private readonly thermoDirty: Uint8Array
-  private readonly thermoOf: number[][] = Array.from({ length: 81 }, () => [])
-  private readonly naked: number[] = []
-  private moves: Move[] = []
-  private dead: { emptyCell?: Cell; emptyHouse?: { house: HouseRef; digit: number }; deps: number[] } | null = null
+  private readonly touched = new Int16Array(81 * 9)
+  private touchedCount = 0
 
-  constructor(private readonly board: Board) {
-    board.thermometers.forEach((t, i) => t.forEach((c) => this.thermoOf[c].push(i)))
-    this.thermoDirty = new Uint8Array(board.thermometers.length)
+  // moves: kind, technique, cell, digits, house or thermometer, and their slice of the dependency pool
+  private readonly moveKind = new Uint8Array(MAX_MOVES)
+  private readonly moveTechnique = new Uint8Array(MAX_MOVES)
+  private readonly moveCell = new Uint8Array(MAX_MOVES)
+  private readonly moveMask = new Uint16Array(MAX_MOVES)
+  private readonly moveWhere = new Int16Array(MAX_MOVES)
+  private readonly moveDeps = new Int32Array(MAX_MOVES + 1)
+  private moveCount = 0
+  private readonly deps = new Int16Array(MAX_DEPS)
+  private depCount = 0
+  /** per move, the last move whose dependencies listed it (dedupes a dependency list) */
+  private readonly stamp = new Int32Array(MAX_MOVES)
+  private readonly needed = new Uint8Array(MAX_MOVES)
+
+  // work for the next round (filled while moves are made) and for the current one
+  private nakedNext = new Uint8Array(81)
+  private nakedNextCount = 0
+  private nakedNow = new Uint8Array(81)
+  private nakedNowCount = 0
+  private readonly nakedQueued = new Uint8Array(81)
+  private houseNext = new Uint16Array(27)
+  private houseNow = new Uint16Array(27)
+  private thermoNext = new Uint8Array(0)
+  private thermoNow = new Uint8Array(0)
+  /** thermometers through each cell: indexes thermoList[thermoStart[c] .. thermoStart[c + 1]) */
+  private readonly thermoStart = new Int16Array(82)
+  private thermoList = new Int16Array(0)
+  /** the thermometer being walked, which need not be queued again by its own removals */
+  private walking = -1
+
+  // the dead end: kind (0 none, 1 cell, 2 house), where, and its dependencies deps[deadFrom .. deadTo)
+  private deadKind = 0
+  private deadCell = 0
+  private deadHouse = 0
+  private deadDigit = 0
+  private deadFrom = 0
+  private deadTo = 0
+
+  /** The shared trial, set up for this board's thermometers. */
+  static for(board: Board): Trial {
+    const trial = (Trial.shared ??= new Trial())
+    if (trial.board !== board) trial.setUp(board)
+    return trial
   }
 
-  // The board has no single or thermometer bound left when this technique runs, so every move
-  // in a trial follows from a change the trial made: only touched cells, houses and
-  // thermometers need looking at.
-  run(cell: Cell, digit: number, maxMoves: number): DeadEnd | null {
-    this.digits.set(this.board.digits)
-    this.cand.set(this.board.cand)
-    for (const i of this.touched) this.remover[i] = -1
-    this.touched.length = 0
-    this.houseDirty.fill(0)
-    this.thermoDirty.fill(0)
-    this.naked.length = 0
-    this.moves = []
-    this.dead = null
-    // The assumption itself is move 0; the chain leaves it out since the step states it.
-    this.place(cell, digit, { technique: 'naked-single', kind: 'place', cell, digits: [digit] }, [])
-    for (;;) {
-      if (this.dead) return this.explain(cell, digit, this.dead)
-      if (this.moves.length > maxMoves || !this.next()) return null
+  private setUp(board: Board): void {
+    this.board = board
+    const ts = board.thermometers
+    if (this.thermoNext.length < ts.length) {
+      this.thermoNext = new Uint8Array(ts.length)
+      this.thermoNow = new Uint8Array(ts.length)
     }
+    const count = new Int16Array(81)
+    let total = 0
+    for (const t of ts) for (let i = 0; i < t.length; i++) {
+      count[t[i]]++
+      total++
+    }
+    if (this.thermoList.length < total) this.thermoList = new Int16Array(total)
+    this.thermoStart[0] = 0
+    for (let c = 0; c < 81; c++) this.thermoStart[c + 1] = this.thermoStart[c] + count[c]
+    const fill = this.thermoStart.slice(0, 81)
+    ts.forEach((t, index) => {
+      for (let i = 0; i < t.length; i++) this.thermoList[fill[t[i]]++] = index
+    })
+  }
+
+  /**
+   * Follows `digit` in `cell` for at most `rounds` rounds. Returns the length of the chain to the
+   * dead end (moves after the assumption that it needs), or −1 when there is none that deep.
+   */
+  run(cell: Cell, digit: number, rounds: number): number {
+    const board = this.board
+    const tCount = board.thermometers.length
+    this.digits.set(board.digits)
+    this.cand.set(board.cand)
+    for (let i = 0; i < this.touchedCount; i++) this.remover[this.touched[i]] = -1
+    this.touchedCount = 0
+    this.moveCount = 0
+    this.depCount = 0
+    this.moveDeps[0] = 0
+    this.deadKind = 0
+    for (let i = 0; i < this.nakedNextCount; i++) this.nakedQueued[this.nakedNext[i]] = 0
+    this.nakedNextCount = 0
+    this.houseNext.fill(0)
+    this.thermoNext.fill(0, 0, tCount)
+    this.walking = -1
+
+    // The assumption itself is move 0; the chain leaves it out since the step states it.
+    this.place(cell, digit, this.commit(PLACE, NAKED, cell, 1 << (digit - 1), -1))
+    for (let round = 1; !this.deadKind; round++) {
+      if (round > rounds || !this.startRound(tCount)) return -1
+      this.nakedSingles()
+      if (!this.deadKind) this.hiddenSingles()
+      if (!this.deadKind) this.bounds(tCount)
+    }
+    return this.chainLength()
+  }
+
+  /** Moves the next round's work to the current round; false when there is none. */
+  private startRound(tCount: number): boolean {
+    let any = this.nakedNextCount > 0
+    ;[this.nakedNow, this.nakedNext] = [this.nakedNext, this.nakedNow]
+    this.nakedNowCount = this.nakedNextCount
+    this.nakedNextCount = 0
+    for (let i = 0; i < this.nakedNowCount; i++) this.nakedQueued[this.nakedNow[i]] = 0
+    ;[this.houseNow, this.houseNext] = [this.houseNext, this.houseNow]
+    this.houseNext.fill(0)
+    for (let h = 0; h < 27 && !any; h++) if (this.houseNow[h]) any = true
+    ;[this.thermoNow, this.thermoNext] = [this.thermoNext, this.thermoNow]
+    this.thermoNext.fill(0, 0, tCount)
+    for (let t = 0; t < tCount && !any; t++) if (this.thermoNow[t]) any = true
+    return any
+  }
+
+  private nakedSingles(): void {
+    const { digits, cand } = this
+    for (let i = 0; i < this.nakedNowCount && !this.deadKind; i++) {
+      const c = this.nakedNow[i]
+      if (digits[c] || POPCOUNT[cand[c]] !== 1) continue
+      this.needRemovers(c, ALL_DIGITS)
+      this.place(c, lowestDigit(cand[c]), this.commit(PLACE, NAKED, c, cand[c], -1))
+    }
+  }
+
+  private hiddenSingles(): void {
+    const { digits, cand, remover } = this
+    for (let h = 0; h < 27 && !this.deadKind; h++) {
+      let dirty = this.houseNow[h]
+      if (!dirty) continue
+      const cells = HOUSES[h]
+      for (let i = 0; i < 9; i++) if (digits[cells[i]]) dirty &= ~(1 << (digits[cells[i]] - 1))
+      while (dirty && !this.deadKind) {
+        const bit = dirty & -dirty
+        dirty ^= bit
+        const d = lowestDigit(bit) - 1
+        let cell = -1
+        let count = 0
+        for (let i = 0; i < 9; i++) {
+          const c = cells[i]
+          if (!digits[c] && cand[c] & bit) {
+            cell = c
+            count++
+          }
+        }
+        if (count > 1) continue
+        if (count === 0) {
+          // a digit placed in this house earlier in the round has no open place and needs nothing
+          let placed = false
+          for (let i = 0; i < 9; i++) if (digits[cells[i]] === d + 1) placed = true
+          if (placed) continue
+        }
+        this.stampNext()
+        for (let i = 0; i < 9; i++) if (cells[i] !== cell) this.need(remover[cells[i] * 9 + d])
+        if (count === 0) {
+          this.die(2, -1, h, d + 1)
+          return
+        }
+        this.place(cell, d + 1, this.commit(PLACE, HIDDEN, cell, bit, h))
+      }
+    }
+  }
+
+  /** Bounds along every queued thermometer, one move per cell that loses digits. */
+  private bounds(tCount: number): void {
+    const { cand, remover } = this
+    const ts = this.board.thermometers
+    for (let t = 0; t < tCount && !this.deadKind; t++) {
+      if (!this.thermoNow[t]) continue
+      const path = ts[t]
+      const n = path.length
+      this.walking = t
+      // from the bulb: a cell must exceed the smallest digit left in the cell before it
+      for (let i = 1; i < n && !this.deadKind; i++) {
+        const before = path[i - 1]
+        const c = path[i]
+        const gone = cand[c] & ~digitsAbove(lowestDigit(cand[before]))
+        if (!gone) continue
+        // it loses digit x because the cell before has nothing below x: who removed those?
+        this.stampNext()
+        const below = digitsBelow(highestDigit(gone))
+        for (let d = 0; d < 9; d++) if (below & (1 << d)) this.need(remover[before * 9 + d])
+        this.remove(c, gone, this.commit(ELIMINATE, BOUNDS, c, gone, t))
+      }
+      // from the tip: a cell must stay below the largest digit left in the cell after it
+      for (let i = n - 2; i >= 0 && !this.deadKind; i--) {
+        const after = path[i + 1]
+        const c = path[i]
+        const gone = cand[c] & ~digitsBelow(highestDigit(cand[after]))
+        if (!gone) continue
+        this.stampNext()
+        const above = digitsAbove(lowestDigit(gone))
+        for (let d = 0; d < 9; d++) if (above & (1 << d)) this.need(remover[after * 9 + d])
+        this.remove(c, gone, this.commit(ELIMINATE, BOUNDS, c, gone, t))
+      }
+      this.walking = -1
+    }
+  }
+
+  /** Starts a fresh dependency list (its entries are pushed by `need`). */
+  private stampNext(): void {
+    if (this.currentStamp === 0x3fffffff) {
+      this.stamp.fill(0)
+      this.currentStamp = 0
+    }
+    this.currentStamp++
+  }
+  private currentStamp = 0
+
+  private need(move: number): void {
+    if (move < 0 || this.stamp[move] === this.currentStamp) return
+    this.stamp[move] = this.currentStamp
+    this.deps[this.depCount++] = move
+  }
+
+  /** Dependencies on the moves that removed `mask`'s digits from a cell. */
+  private needRemovers(cell: Cell, mask: number): void {
+    this.stampNext()
+    for (let d = 0; d < 9; d++) if (mask & (1 << d)) this.need(this.remover[cell * 9 + d])
+  }
+
+  /** Records a move whose dependencies were just pushed; returns its index. */
+  private commit(kind: number, technique: number, cell: Cell, mask: number, where: number): number {
+    const id = this.moveCount++
+    this.moveKind[id] = kind
+    this.moveTechnique[id] = technique
+    this.moveCell[id] = cell
+    this.moveMask[id] = mask
+    this.moveWhere[id] = where
+    this.moveDeps[id + 1] = this.depCount
+    return id
+  }
+
+  private die(kind: 1 | 2, cell: Cell, house: number, digit: number): void {
+    // the dead end's dependencies were just pushed after the last move's
+    this.deadKind = kind
+    this.deadCell = cell
+    this.deadHouse = house
+    this.deadDigit = digit
+    this.deadFrom = this.moveDeps[this.moveCount]
+    this.deadTo = this.depCount
   }
 
   private remove(cell: Cell, mask: number, id: number): void {
@@ -147,108 +408,70 @@ class Trial {
     for (let d = 0; d < 9; d++) {
       if (gone & (1 << d)) {
         this.remover[cell * 9 + d] = id
-        this.touched.push(cell * 9 + d)
+        this.touched[this.touchedCount++] = cell * 9 + d
       }
     }
     if (!left) {
-      if (!this.dead) this.dead = { emptyCell: cell, deps: this.removersOf(cell, ALL_DIGITS) }
+      if (!this.deadKind) {
+        this.needRemovers(cell, ALL_DIGITS)
+        this.die(1, cell, -1, 0)
+      }
       return
     }
-    if (!this.digits[cell] && POPCOUNT[left] === 1) this.naked.push(cell)
+    if (!this.digits[cell] && POPCOUNT[left] === 1 && !this.nakedQueued[cell]) {
+      this.nakedQueued[cell] = 1
+      this.nakedNext[this.nakedNextCount++] = cell
+    }
     const houses = CELL_HOUSES[cell]
-    for (let i = 0; i < 3; i++) this.houseDirty[houses[i]] |= gone
-    for (const t of this.thermoOf[cell]) this.thermoDirty[t] = 1
+    this.houseNext[houses[0]] |= gone
+    this.houseNext[houses[1]] |= gone
+    this.houseNext[houses[2]] |= gone
+    for (let i = this.thermoStart[cell]; i < this.thermoStart[cell + 1]; i++) {
+      const t = this.thermoList[i]
+      if (t !== this.walking) this.thermoNext[t] = 1
+    }
   }
 
-  private place(cell: Cell, digit: number, link: ChainLink, deps: number[]): void {
-    const id = this.moves.push({ link, deps }) - 1
+  private place(cell: Cell, digit: number, id: number): void {
     const bit = 1 << (digit - 1)
     this.remove(cell, ALL_DIGITS & ~bit, id)
     this.digits[cell] = digit
-    for (const t of this.thermoOf[cell]) this.thermoDirty[t] = 1
     const peers = PEERS[cell]
     for (let i = 0; i < 20; i++) if (!this.digits[peers[i]]) this.remove(peers[i], bit, id)
   }
 
-  /** Applies the next simple move; false when none is left. */
-  private next(): boolean {
-    const { digits, cand } = this
-    while (this.naked.length) {
-      const c = this.naked.shift() as number
-      if (digits[c] || POPCOUNT[cand[c]] !== 1) continue
-      const d = lowestDigit(cand[c])
-      this.place(c, d, { technique: 'naked-single', kind: 'place', cell: c, digits: [d] }, this.removersOf(c, ALL_DIGITS))
-      return true
+  /** Marks the moves the dead end needs and counts them, leaving out the assumption. */
+  private chainLength(): number {
+    const { needed, deps, moveDeps } = this
+    needed.fill(0, 0, this.moveCount)
+    for (let i = this.deadFrom; i < this.deadTo; i++) needed[deps[i]] = 1
+    let length = 0
+    for (let m = this.moveCount - 1; m > 0; m--) {
+      if (!needed[m]) continue
+      length++
+      for (let i = moveDeps[m]; i < moveDeps[m + 1]; i++) needed[deps[i]] = 1
     }
-    for (let h = 0; h < 27; h++) {
-      let dirty = this.houseDirty[h]
-      if (!dirty) continue
-      const cells = HOUSES[h]
-      for (let i = 0; i < 9; i++) if (digits[cells[i]]) dirty &= ~(1 << (digits[cells[i]] - 1))
-      while (dirty) {
-        const bit = dirty & -dirty
-        dirty ^= bit
-        this.houseDirty[h] &= ~bit
-        const d = lowestDigit(bit)
-        let cell = -1
-        let count = 0
-        for (let i = 0; i < 9; i++) if (!digits[cells[i]] && cand[cells[i]] & bit) {
-          cell = cells[i]
-          count++
-        }
-        if (count > 1) continue
-        const deps: number[] = []
-        for (let i = 0; i < 9; i++) {
-          const r = this.remover[cells[i] * 9 + d - 1]
-          if (cells[i] !== cell && r >= 0) deps.push(r)
-        }
-        if (count === 0) {
-          this.dead = { emptyHouse: { house: houseRef(h), digit: d }, deps }
-          return true
-        }
-        this.place(cell, d, { technique: 'hidden-single', kind: 'place', cell, digits: [d], house: houseRef(h) }, deps)
-        return true
-      }
-      this.houseDirty[h] = 0
-    }
-    const thermometers = this.board.thermometers
-    for (let t = 0; t < thermometers.length; t++) {
-      if (!this.thermoDirty[t]) continue
-      const path = thermometers[t]
-      for (const direction of ['min', 'max'] as const) {
-        const runs = boundRuns(digits, cand, path, direction, true)
-        if (!runs.length) continue
-        const deps: number[] = []
-        for (const c of path) for (const r of this.removersOf(c, ALL_DIGITS)) deps.push(r)
-        for (const { index, keep } of runs[0].changed) {
-          const c = path[index]
-          const gone = cand[c] & ~keep
-          const id = this.moves.push({ link: { technique: 'thermo-bounds', kind: 'eliminate', cell: c, digits: digitsOf(gone), thermometer: t }, deps }) - 1
-          this.remove(c, gone, id)
-        }
-        return true
-      }
-      this.thermoDirty[t] = 0
-    }
-    return false
+    return length
   }
 
-  private removersOf(cell: Cell, mask: number): number[] {
-    const out: number[] = []
-    for (let d = 0; d < 9; d++) if (mask & (1 << d) && this.remover[cell * 9 + d] >= 0) out.push(this.remover[cell * 9 + d])
-    return out
-  }
-
-  /** Keeps only the moves the dead end depends on, in the order they were made. */
-  private explain(cell: Cell, digit: number, dead: { emptyCell?: Cell; emptyHouse?: { house: HouseRef; digit: number }; deps: number[] }): DeadEnd {
-    const needed = new Uint8Array(this.moves.length)
-    for (const d of dead.deps) needed[d] = 1
-    for (let i = this.moves.length - 1; i > 0; i--) if (needed[i]) for (const d of this.moves[i].deps) needed[d] = 1
+  /** The chain of the trial just run (after `run` returned a length), as records. */
+  deadEnd(cell: Cell, digit: number): DeadEnd {
     const chain: ChainLink[] = []
-    for (let i = 1; i < this.moves.length; i++) if (needed[i]) chain.push(this.moves[i].link)
+    for (let m = 1; m < this.moveCount; m++) {
+      if (!this.needed[m]) continue
+      const link: ChainLink = {
+        technique: this.moveTechnique[m] === NAKED ? 'naked-single' : this.moveTechnique[m] === HIDDEN ? 'hidden-single' : 'thermo-bounds',
+        kind: this.moveKind[m] === PLACE ? 'place' : 'eliminate',
+        cell: this.moveCell[m],
+        digits: digitsOf(this.moveMask[m]),
+      }
+      if (this.moveTechnique[m] === HIDDEN) link.house = houseRef(this.moveWhere[m])
+      if (this.moveTechnique[m] === BOUNDS) link.thermometer = this.moveWhere[m]
+      chain.push(link)
+    }
     const out: DeadEnd = { cell, digit, chain }
-    if (dead.emptyCell !== undefined) out.emptyCell = dead.emptyCell
-    if (dead.emptyHouse) out.emptyHouse = dead.emptyHouse
+    if (this.deadKind === 1) out.emptyCell = this.deadCell
+    else out.emptyHouse = { house: houseRef(this.deadHouse), digit: this.deadDigit }
     return out
   }
 }
