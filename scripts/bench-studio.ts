@@ -7,7 +7,8 @@
  *   - frames per second while → is held (key repeat at 30/s, and a key every frame).
  * Run with `npx tsx scripts/bench-studio.ts` (to be wired as `npm run bench:studio`).
  * Options: --dist <dir> reuses an existing build; --profile builds unminified and prints the functions
- * with the most self time while stepping; CHROMIUM_PATH overrides /usr/bin/chromium.
+ * with the most self time while stepping; --screenshot <file.png> saves the Studio at step 40;
+ * CHROMIUM_PATH overrides /usr/bin/chromium; BENCH_NO_FOLLOW=1 turns off "Follow the step" (to compare).
  */
 import { createServer } from 'node:http'
 import type { IncomingMessage, ServerResponse } from 'node:http'
@@ -173,6 +174,7 @@ async function main(): Promise<void> {
     // tsx compiles the page functions below with esbuild's name helper; give the page a no-op one.
     await context.addInitScript({ content: 'window.__name = (fn) => fn' })
     await context.addInitScript((value) => localStorage.setItem('gridcue.session', value), JSON.stringify(session))
+    if (process.env.BENCH_NO_FOLLOW) await context.addInitScript({ content: `localStorage.setItem('gridcue.studio.prefs', '{"pane":"script","followStep":false,"showTradeTerms":true}')` })
     const page = await context.newPage()
 
     const loadStart = Date.now()
@@ -180,6 +182,13 @@ async function main(): Promise<void> {
     await page.waitForSelector('.step-head')
     await page.waitForSelector('article.line')
     const loadMs = Date.now() - loadStart
+    const shotAt = process.argv.indexOf('--screenshot')
+    if (shotAt > 0 && process.argv[shotAt + 1]) {
+      await page.goto(`${app.url}/channels/1/outlines/1?step=40`)
+      await page.waitForSelector('article.line')
+      await page.waitForTimeout(800)
+      await page.screenshot({ path: process.argv[shotAt + 1] })
+    }
     // Let fonts and the first layout settle before timing anything.
     await page.evaluate(() => document.fonts.ready)
     await page.waitForTimeout(500)

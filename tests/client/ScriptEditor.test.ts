@@ -53,6 +53,7 @@ const button = (scope: ReturnType<Wrapper['find']>, text: string) => {
   if (!found) throw new Error(`no button "${text}"`)
   return found
 }
+const nextFrame = () => new Promise<void>((resolve) => requestAnimationFrame(() => resolve()))
 function pressKey(key: string, init: KeyboardEventInit = {}, target: EventTarget = window) {
   const event = new KeyboardEvent('keydown', { key, bubbles: true, cancelable: true, ...init })
   target.dispatchEvent(event)
@@ -93,7 +94,7 @@ describe('ScriptEditor with useOutlineEditor', () => {
     Object.defineProperty(el, 'offsetHeight', { value: 100 })
 
     await wrapper.setProps({ current: target.id })
-    await flushPromises()
+    await nextFrame()
     expect(lineEl(wrapper, target.id).attributes('aria-current')).toBe('step')
     expect(lineEl(wrapper, doc.lines[0].id).attributes('aria-current')).toBeUndefined()
     // Brought up from below: its bottom edge lands a margin above the pane's bottom.
@@ -106,7 +107,7 @@ describe('ScriptEditor with useOutlineEditor', () => {
     Object.defineProperty(near, 'offsetTop', { value: 1100 })
     Object.defineProperty(near, 'offsetHeight', { value: 100 })
     await wrapper.setProps({ current: doc.lines[11].id })
-    await flushPromises()
+    await nextFrame()
     expect(scrollTo).not.toHaveBeenCalled()
     wrapper.unmount()
   })

@@ -51,27 +51,31 @@ export const contradiction: Technique = {
     const trial = Trial.for(board)
     let best: DeadEnd | null = null
     let bestLength = Infinity
+    let bestOpens = false
     let bestDistance = Infinity
     const failed: number[] = []
     const tried = new Uint8Array(729)
     const consider = (cell: Cell, digit: number, depth: number) => {
+      const useful = opens(board, cell, digit)
+      // once a chain leaves a single behind, one that does not cannot win
+      if (bestOpens && !useful) return
       const length = trial.run(cell, digit, Math.min(depth, bestLength))
       if (length < 0) return
       failed.push(cell * 9 + digit - 1)
-      const score = length + (opens(board, cell, digit) ? 0 : PENALTY)
       const d = distance([cell], near)
-      if (score < bestLength || (score === bestLength && d < bestDistance)) {
+      const better = useful !== bestOpens ? useful : length < bestLength || (length === bestLength && d < bestDistance)
+      if (!best || better) {
         best = trial.deadEnd(cell, digit)
-        bestLength = score
+        bestLength = length
+        bestOpens = useful
         bestDistance = d
       }
     }
     // Cells with fewest candidates first ("if this were a 3" reads best on a two-way cell), then nearest.
     const order: Cell[] = []
     for (let c = 0; c < 81; c++) if (!board.digits[c]) order.push(c)
-    const near9 = order.map((c) => distance([c], near))
     const rank = new Uint8Array(81)
-    order.forEach((c, i) => (rank[c] = near9[i]))
+    for (const c of order) rank[c] = distance([c], near)
     order.sort((a, b) => POPCOUNT[board.cand[a]] - POPCOUNT[board.cand[b]] || rank[a] - rank[b] || a - b)
     const previous = (remembered.get(board) ?? []).filter((key) => !board.digits[(key / 9) | 0] && board.cand[(key / 9) | 0] & (1 << key % 9))
     for (const depth of STAGES) {
@@ -89,14 +93,13 @@ export const contradiction: Technique = {
           if (!tried[cell * 9 + digit - 1]) consider(cell, digit, depth)
         }
       }
-      if (best) break
+      if (best && (bestOpens || process.env.VB !== '1')) break
     }
     remembered.set(board, failed)
     return best ? toDeduction(best) : null
   },
 }
 
-const PENALTY = Number(process.env.PEN ?? 0)
 /** True when removing the digit leaves a single behind: a two-way cell, or a digit with two places in a house. */
 function opens(board: Board, cell: Cell, digit: number): boolean {
   if (POPCOUNT[board.cand[cell]] === 2) return true
