@@ -3,6 +3,7 @@ import type { Server } from 'node:http'
 import { chromium, type Browser } from 'playwright-core'
 import { createApp } from '../../server/app'
 import type { Db } from '../../server/db/knex'
+import { testEnginePool } from './api'
 import { testConfig } from './db'
 
 /** Flags Chromium needs on this closed, GPU-less machine (see the team's stack notes). */
@@ -19,15 +20,19 @@ const CHROMIUM_ARGS = [
 export const launchChromium = (): Promise<Browser> =>
   chromium.launch({ executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium', args: CHROMIUM_ARGS })
 
-/** Serves the built client (dist/) and the API on a free loopback port. */
+/** Serves the built client (dist/) and the API, with a one-thread engine pool, on a free loopback port. */
 export async function serveApp(db: Db): Promise<{ url: string; close: () => Promise<void> }> {
-  const app = createApp({ db, config: testConfig() })
+  const engine = testEnginePool()
+  const app = createApp({ db, config: testConfig(), engine })
   const server: Server = await new Promise((resolve) => {
     const s = app.listen(0, '127.0.0.1', () => resolve(s))
   })
   const { port } = server.address() as AddressInfo
   return {
     url: `http://127.0.0.1:${port}`,
-    close: () => new Promise((resolve) => server.close(() => resolve())),
+    close: async () => {
+      await new Promise<void>((resolve) => server.close(() => resolve()))
+      await engine.destroy()
+    },
   }
 }
