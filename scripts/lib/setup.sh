@@ -35,7 +35,8 @@ ensure_postgres_binaries() {
 
 # Runs a PostgreSQL server tool as the user that owns the cluster (PostgreSQL refuses root).
 as_pg_user() {
-  if [ "$(id -u)" = 0 ]; then runuser -u postgres -- "$@"; else "$@"; fi
+  # from / so the tools don't complain about a working folder the postgres user cannot enter
+  if [ "$(id -u)" = 0 ]; then (cd / && runuser -u postgres -- "$@"); else "$@"; fi
 }
 
 # The cluster lives in .data/ unless the postgres user cannot reach the checkout (e.g. under /root
@@ -98,7 +99,7 @@ ensure_database() {
 
 recreate_database() {
   local port=$1 db=$2
-  "$PG_BIN/dropdb" -h 127.0.0.1 -p "$port" -U postgres --if-exists --force "$db"
+  PGOPTIONS="-c client_min_messages=warning" "$PG_BIN/dropdb" -h 127.0.0.1 -p "$port" -U postgres --if-exists --force "$db"
   "$PG_BIN/createdb" -h 127.0.0.1 -p "$port" -U postgres "$db"
 }
 

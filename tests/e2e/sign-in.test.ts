@@ -1,29 +1,13 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser } from 'playwright-core'
-import type { Db } from '../../server/db/knex'
+import { describe, expect, it } from 'vitest'
 import { DEMO_PASSWORD } from '../../seeds/01_demo_channel'
-import { launchChromium, serveApp } from '../helpers/browser'
-import { openTestDb, resetWithDemo } from '../helpers/db'
+import { useBrowserSuite } from '../helpers/browser'
 
-let db: Db
-let browser: Browser
-let server: Awaited<ReturnType<typeof serveApp>>
-beforeAll(async () => {
-  db = await openTestDb()
-  await resetWithDemo(db)
-  server = await serveApp(db)
-  browser = await launchChromium()
-})
-afterAll(async () => {
-  await browser?.close()
-  await server?.close()
-  await db?.destroy()
-})
+const suite = useBrowserSuite()
 
 describe('signing in (Chromium)', () => {
   it('should send an anonymous visitor to sign-in, then show the demo channel on the home page', async () => {
-    const page = await browser.newPage()
-    await page.goto(server.url)
+    const page = await suite.browser.newPage()
+    await page.goto(suite.url)
     await page.getByRole('heading', { name: 'Sign in' }).waitFor()
     expect(new URL(page.url()).pathname).toBe('/sign-in')
 
@@ -44,8 +28,8 @@ describe('signing in (Chromium)', () => {
   })
 
   it('should show the not-found page for an unknown address', async () => {
-    const page = await browser.newPage()
-    await page.goto(`${server.url}/no/such/page`)
+    const page = await suite.browser.newPage()
+    await page.goto(`${suite.url}/no/such/page`)
     await page.getByText(/not found|doesn.t exist|no page/i).first().waitFor()
     await page.close()
   })

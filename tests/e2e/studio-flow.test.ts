@@ -1,10 +1,8 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser, Page } from 'playwright-core'
-import type { Db } from '../../server/db/knex'
+import { describe, expect, it } from 'vitest'
+import type { Page } from 'playwright-core'
 import { DEMO_PASSWORD } from '../../seeds/01_demo_channel'
 import classic from '../fixtures/classic-puzzles.json'
-import { launchChromium, serveApp } from '../helpers/browser'
-import { openTestDb, resetWithDemo } from '../helpers/db'
+import { useBrowserSuite } from '../helpers/browser'
 
 // Project Euler problem 96, grid 01 (source noted in tests/fixtures/classic-puzzles.json): unique on its own,
 // so adding a thermometer that agrees with its solution keeps it unique.
@@ -24,20 +22,7 @@ function risingPath(givens: string, solution: string): number[] {
 
 const cellName = (c: number) => `r${Math.floor(c / 9) + 1}c${(c % 9) + 1}`
 
-let db: Db
-let browser: Browser
-let server: Awaited<ReturnType<typeof serveApp>>
-beforeAll(async () => {
-  db = await openTestDb()
-  await resetWithDemo(db)
-  server = await serveApp(db)
-  browser = await launchChromium()
-})
-afterAll(async () => {
-  await browser?.close()
-  await server?.close()
-  await db?.destroy()
-})
+const suite = useBrowserSuite()
 
 async function centreOf(page: Page, cell: number) {
   const box = await page.locator(`svg[role="grid"] [data-cell="${cell}"]`).first().boundingBox()
@@ -47,8 +32,8 @@ async function centreOf(page: Page, cell: number) {
 
 describe('presenter: from an empty puzzle to an edited, saved outline (Chromium)', () => {
   it('should type givens, drag a thermometer, find the path, step with the keyboard and keep an edited line across a reload', async () => {
-    const page = await browser.newPage({ viewport: { width: 1440, height: 900 } })
-    await page.goto(server.url)
+    const page = await suite.browser.newPage({ viewport: { width: 1440, height: 900 } })
+    await page.goto(suite.url)
     await page.getByLabel('E-mail').fill('presenter@gridcue.example')
     await page.getByLabel('Password', { exact: true }).fill(DEMO_PASSWORD)
     await page.getByRole('button', { name: 'Sign in' }).click()
@@ -107,7 +92,7 @@ describe('presenter: from an empty puzzle to an edited, saved outline (Chromium)
     expect(new URL(page.url()).searchParams.get('step')).not.toBeNull()
 
     // and the server holds it, not only this browser
-    const stored = await db('outlines').orderBy('id', 'desc').first()
+    const stored = await suite.db('outlines').orderBy('id', 'desc').first()
     expect(JSON.stringify(stored!.document)).toContain('the thermometer we just drew')
     await page.close()
   })

@@ -1,10 +1,11 @@
 import type { AddressInfo } from 'node:net'
+import { afterAll, beforeAll } from 'vitest'
 import type { Server } from 'node:http'
 import { chromium, type Browser } from 'playwright-core'
 import { createApp } from '../../server/app'
 import type { Db } from '../../server/db/knex'
 import { testEnginePool } from './api'
-import { testConfig } from './db'
+import { openTestDb, resetWithDemo, testConfig } from './db'
 
 /** Flags Chromium needs on this closed, GPU-less machine (see the team's stack notes). */
 const CHROMIUM_ARGS = [
@@ -35,4 +36,29 @@ export async function serveApp(db: Db): Promise<{ url: string; close: () => Prom
       await engine.destroy()
     },
   }
+}
+
+export interface BrowserSuite {
+  db: Db
+  browser: Browser
+  url: string
+}
+
+/** Registers hooks that give a test file fresh demo data, the app on a free port and a Chromium; read it inside tests. */
+export function useBrowserSuite(): BrowserSuite {
+  const suite = {} as BrowserSuite
+  let server: Awaited<ReturnType<typeof serveApp>> | undefined
+  beforeAll(async () => {
+    suite.db = await openTestDb()
+    await resetWithDemo(suite.db)
+    server = await serveApp(suite.db)
+    suite.url = server.url
+    suite.browser = await launchChromium()
+  })
+  afterAll(async () => {
+    await suite.browser?.close()
+    await server?.close()
+    await suite.db?.destroy()
+  })
+  return suite
 }
