@@ -7,15 +7,30 @@
  * The search is staged by depth (rounds of moves): every candidate is tried shallow first, and
  * only when no candidate fails there is it tried deeper. The final stage follows an assumption
  * until nothing more follows (at most one move per candidate of the grid, so still bounded); it
- * runs only when every shallower stage found nothing. Shortest chain wins, then the assumption
- * nearest the previous focus. All trial state lives in typed arrays reused across trials: a trial
- * allocates nothing until it beats the best chain so far.
+ * runs only when every shallower stage found nothing.
+ *
+ * Choice: an assumption whose removal leaves a single behind beats one that does not; then the
+ * shorter chain, chains the narration reads in full counting as equally short, among which the
+ * elimination that lets singles and bounds fill the most cells wins; then the shorter chain, then
+ * the assumption nearest the previous focus. All trial state lives in typed arrays reused across
+ * trials: a trial allocates nothing unless its chain may be chosen.
  */
-import { ALL_DIGITS, CELL_HOUSES, HOUSES, PEERS, POPCOUNT, digitsAbove, digitsBelow, digitsOf, highestDigit, houseRef, lowestDigit } from '../geometry'
+import * as geometry from '../geometry'
+import { ALL_DIGITS, digitsOf, houseRef } from '../geometry'
 import type { Board } from '../board'
 import type { Cell, ChainLink, HouseRef } from '../types'
 import { distance, type Technique } from './deduction'
 import { TECHNIQUES } from './catalog'
+
+// Module-level copies of the tables and helpers: the hot loops read plain bindings, not imports
+// (which some module loaders turn into property getters).
+const { CELL_HOUSES, HOUSES, PEERS, POPCOUNT, digitsAbove, digitsBelow, highestDigit, lowestDigit } = geometry
+
+/**
+ * Chains up to this many links are read aloud in full (the narration reads three, then sums up),
+ * so among them the shortest is not preferred: the one that opens up more of the grid is.
+ */
+const READ_IN_FULL = 3
 
 /** Rounds followed after an assumption, stage by stage; Infinity = until nothing more follows. */
 const STAGES = [2, 4, 8, Infinity]
@@ -42,7 +57,7 @@ interface DeadEnd {
 
 /**
  * Assumptions that failed last time, per board: they usually still fail, and trying them first
- * gives a short chain early, which caps the depth of every later trial.
+ * finds a chain early, which caps the depth of the later trials.
  */
 const remembered = new WeakMap<Board, number[]>()
 
@@ -51,7 +66,9 @@ export const contradiction: Technique = {
     const trial = Trial.for(board)
     let best: DeadEnd | null = null
     let bestLength = Infinity
+    let bestBucket = Infinity
     let bestOpens = false
+    let bestProgress = -1
     let bestDistance = Infinity
     const failed: number[] = []
     const tried = new Uint8Array(729)
@@ -59,15 +76,26 @@ export const contradiction: Technique = {
       const useful = opens(board, cell, digit)
       // once a chain leaves a single behind, one that does not cannot win
       if (bestOpens && !useful) return
-      const length = trial.run(cell, digit, Math.min(depth, bestLength))
+      const length = trial.run(cell, digit, Math.min(depth, bestBucket))
       if (length < 0) return
       failed.push(cell * 9 + digit - 1)
+      const bucket = Math.max(length, READ_IN_FULL)
+      if (best && useful === bestOpens && bucket > bestBucket) return
+      const dead = trial.deadEnd(cell, digit)
+      const progress = trial.progress(cell, digit)
       const d = distance([cell], near)
-      const better = useful !== bestOpens ? useful : length < bestLength || (length === bestLength && d < bestDistance)
+      const better =
+        useful !== bestOpens ? useful
+        : bucket !== bestBucket ? bucket < bestBucket
+        : progress !== bestProgress ? progress > bestProgress
+        : length !== bestLength ? length < bestLength
+        : d < bestDistance
       if (!best || better) {
-        best = trial.deadEnd(cell, digit)
+        best = dead
         bestLength = length
+        bestBucket = bucket
         bestOpens = useful
+        bestProgress = progress
         bestDistance = d
       }
     }
@@ -93,7 +121,7 @@ export const contradiction: Technique = {
           if (!tried[cell * 9 + digit - 1]) consider(cell, digit, depth)
         }
       }
-      if (best && (bestOpens || process.env.VB !== '1')) break
+      if (best) break
     }
     remembered.set(board, failed)
     return best ? toDeduction(best) : null
@@ -159,6 +187,9 @@ class Trial {
   /** remover entries set by the current trial, so the next one resets only those */
   private readonly touched = new Int16Array(81 * 9)
   private touchedCount = 0
+  /** per house and digit, the cells (placed or open) still holding it; `baseCount` is the board's */
+  private readonly count = new Uint8Array(27 * 9)
+  private readonly baseCount = new Uint8Array(27 * 9)
 
   // moves: kind, technique, cell, digits, house or thermometer, and their slice of the dependency pool
   private readonly moveKind = new Uint8Array(MAX_MOVES)
@@ -202,6 +233,15 @@ class Trial {
   static for(board: Board): Trial {
     const trial = (Trial.shared ??= new Trial())
     if (trial.board !== board) trial.setUp(board)
+    const { baseCount } = trial
+    baseCount.fill(0)
+    for (let h = 0; h < 27; h++) {
+      const cells = HOUSES[h]
+      for (let i = 0; i < 9; i++) {
+        const m = board.cand[cells[i]]
+        for (let d = 0; d < 9; d++) if (m & (1 << d)) baseCount[h * 9 + d]++
+      }
+    }
     return trial
   }
 
@@ -232,10 +272,19 @@ class Trial {
    * dead end (moves after the assumption that it needs), or −1 when there is none that deep.
    */
   run(cell: Cell, digit: number, rounds: number): number {
+    this.reset()
+    // The assumption itself is move 0; the chain leaves it out since the step states it.
+    this.place(cell, digit, this.commit(PLACE, NAKED, cell, 1 << (digit - 1), -1))
+    return this.follow(rounds) ? this.chainLength() : -1
+  }
+
+  /** The board's state, no moves, no work queued. */
+  private reset(): void {
     const board = this.board
     const tCount = board.thermometers.length
     this.digits.set(board.digits)
     this.cand.set(board.cand)
+    this.count.set(this.baseCount)
     for (let i = 0; i < this.touchedCount; i++) this.remover[this.touched[i]] = -1
     this.touchedCount = 0
     this.moveCount = 0
@@ -247,16 +296,32 @@ class Trial {
     this.houseNext.fill(0)
     this.thermoNext.fill(0, 0, tCount)
     this.walking = -1
+  }
 
-    // The assumption itself is move 0; the chain leaves it out since the step states it.
-    this.place(cell, digit, this.commit(PLACE, NAKED, cell, 1 << (digit - 1), -1))
+  /**
+   * How many cells singles and bounds fill once the digit is removed from the cell: a failed
+   * assumption that opens up more of the grid makes the better step.
+   */
+  progress(cell: Cell, digit: number): number {
+    this.reset()
+    const bit = 1 << (digit - 1)
+    this.remove(cell, bit, this.commit(ELIMINATE, NAKED, cell, bit, -1))
+    this.follow(Infinity)
+    let placed = 0
+    for (let m = 1; m < this.moveCount; m++) if (this.moveKind[m] === PLACE) placed++
+    return placed
+  }
+
+  /** Rounds of moves until a dead end (true), or no move left or `rounds` used up (false). */
+  private follow(rounds: number): boolean {
+    const tCount = this.board.thermometers.length
     for (let round = 1; !this.deadKind; round++) {
-      if (round > rounds || !this.startRound(tCount)) return -1
+      if (round > rounds || !this.startRound(tCount)) return false
       this.nakedSingles()
       if (!this.deadKind) this.hiddenSingles()
       if (!this.deadKind) this.bounds(tCount)
     }
-    return this.chainLength()
+    return true
   }
 
   /** Moves the next round's work to the current round; false when there is none. */
@@ -285,39 +350,22 @@ class Trial {
     }
   }
 
+  /** A digit left with one place in a house goes there (a house left with none was caught in `remove`). */
   private hiddenSingles(): void {
-    const { digits, cand, remover } = this
+    const { digits, cand, remover, count } = this
     for (let h = 0; h < 27 && !this.deadKind; h++) {
       let dirty = this.houseNow[h]
-      if (!dirty) continue
-      const cells = HOUSES[h]
-      for (let i = 0; i < 9; i++) if (digits[cells[i]]) dirty &= ~(1 << (digits[cells[i]] - 1))
       while (dirty && !this.deadKind) {
         const bit = dirty & -dirty
         dirty ^= bit
         const d = lowestDigit(bit) - 1
+        if (count[h * 9 + d] !== 1) continue
+        const cells = HOUSES[h]
         let cell = -1
-        let count = 0
-        for (let i = 0; i < 9; i++) {
-          const c = cells[i]
-          if (!digits[c] && cand[c] & bit) {
-            cell = c
-            count++
-          }
-        }
-        if (count > 1) continue
-        if (count === 0) {
-          // a digit placed in this house earlier in the round has no open place and needs nothing
-          let placed = false
-          for (let i = 0; i < 9; i++) if (digits[cells[i]] === d + 1) placed = true
-          if (placed) continue
-        }
+        for (let i = 0; i < 9; i++) if (cand[cells[i]] & bit) cell = cells[i]
+        if (digits[cell]) continue
         this.stampNext()
         for (let i = 0; i < 9; i++) if (cells[i] !== cell) this.need(remover[cells[i] * 9 + d])
-        if (count === 0) {
-          this.die(2, -1, h, d + 1)
-          return
-        }
         this.place(cell, d + 1, this.commit(PLACE, HIDDEN, cell, bit, h))
       }
     }
@@ -408,10 +456,14 @@ class Trial {
     if (!gone) return
     const left = this.cand[cell] & ~gone
     this.cand[cell] = left
+    const houses = CELL_HOUSES[cell]
+    const { count } = this
+    let emptied = -1
     for (let d = 0; d < 9; d++) {
       if (gone & (1 << d)) {
         this.remover[cell * 9 + d] = id
         this.touched[this.touchedCount++] = cell * 9 + d
+        for (let k = 0; k < 3; k++) if (--count[houses[k] * 9 + d] === 0 && emptied < 0) emptied = houses[k] * 9 + d
       }
     }
     if (!left) {
@@ -421,11 +473,19 @@ class Trial {
       }
       return
     }
+    if (emptied >= 0 && !this.deadKind) {
+      const h = (emptied / 9) | 0
+      const d = emptied % 9
+      const cells = HOUSES[h]
+      this.stampNext()
+      for (let i = 0; i < 9; i++) this.need(this.remover[cells[i] * 9 + d])
+      this.die(2, -1, h, d + 1)
+      return
+    }
     if (!this.digits[cell] && POPCOUNT[left] === 1 && !this.nakedQueued[cell]) {
       this.nakedQueued[cell] = 1
       this.nakedNext[this.nakedNextCount++] = cell
     }
-    const houses = CELL_HOUSES[cell]
     this.houseNext[houses[0]] |= gone
     this.houseNext[houses[1]] |= gone
     this.houseNext[houses[2]] |= gone

@@ -23,10 +23,27 @@ test('generated puzzles: oracle and exact solver agree; paths are sound; stuck p
         expect(result.status).toBe('stuck')
         const end = stateAt(puzzle, result.steps, result.steps.length)
         for (let c = 0; c < 81; c++) expect(end.candidates[c] & (1 << (Number(g.solution[c]) - 1))).not.toBe(0)
+        // stuck only when truly stuck: no single assumption runs into a dead end by singles and bounds
+        expect(failingAssumption(end.candidates, puzzle.thermometers)).toBeNull()
       }
     }),
     { numRuns: 15, seed: 20240517 },
   )
+}, 60_000)
+
+test('the independent dead-end finder above is not blind: it finds one wherever the engine makes a contradiction step', () => {
+  let checked = 0
+  for (let seed = 600; seed < 606; seed++) {
+    const g = generateThermo(seed)
+    const puzzle = parsePuzzle(g).puzzle as Puzzle
+    const result = solvePath(g)
+    result.steps.forEach((step, k) => {
+      if (step.technique !== 'contradiction') return
+      checked++
+      expect(failingAssumption(stateAt(puzzle, result.steps, k).candidates, puzzle.thermometers)).not.toBeNull()
+    })
+  }
+  expect(checked).toBeGreaterThan(0)
 }, 60_000)
 
 test('classic grids with random givens removed stay sound (or are rejected as not unique)', () => {
@@ -42,3 +59,58 @@ test('classic grids with random givens removed stay sound (or are rejected as no
     { numRuns: 20, seed: 7 },
   )
 }, 60_000)
+
+/**
+ * An assumption (cell, digit) that singles and thermometer bounds, followed to the end, drive into
+ * a cell or a house with no option; null when there is none. Written here independently of the
+ * engine (common practice: the rules of sudoku and of thermometers).
+ */
+function failingAssumption(start: Uint16Array, thermometers: number[][]): [number, number] | null {
+  const houses: number[][] = []
+  for (let i = 0; i < 9; i++) {
+    houses.push(Array.from({ length: 9 }, (_, j) => i * 9 + j), Array.from({ length: 9 }, (_, j) => j * 9 + i))
+    houses.push(Array.from({ length: 9 }, (_, j) => (3 * Math.floor(i / 3) + Math.floor(j / 3)) * 9 + 3 * (i % 3) + (j % 3)))
+  }
+  const single = (m: number) => m !== 0 && (m & (m - 1)) === 0
+  const consistent = (cand: Uint16Array): boolean => {
+    for (let changed = true; changed; ) {
+      changed = false
+      const set = (c: number, m: number) => {
+        if (m !== cand[c]) {
+          cand[c] = m
+          changed = true
+        }
+      }
+      for (const h of houses) {
+        for (const c of h) if (single(cand[c])) for (const p of h) if (p !== c) set(p, cand[p] & ~cand[c])
+        for (let bit = 1; bit < 512; bit <<= 1) {
+          const places = h.filter((c) => cand[c] & bit)
+          if (!places.length) return false
+          if (places.length === 1) set(places[0], bit)
+        }
+      }
+      for (const path of thermometers) {
+        for (let i = 1; i < path.length; i++) {
+          const low = cand[path[i - 1]] & -cand[path[i - 1]]
+          set(path[i], cand[path[i]] & ~((low << 1) - 1))
+        }
+        for (let i = path.length - 2; i >= 0; i--) {
+          const high = 1 << (31 - Math.clz32(cand[path[i + 1]]))
+          set(path[i], cand[path[i]] & (high - 1))
+        }
+      }
+      if (cand.some((m) => m === 0)) return false
+    }
+    return true
+  }
+  for (let c = 0; c < 81; c++) {
+    if (single(start[c])) continue
+    for (let d = 1; d <= 9; d++) {
+      if (!(start[c] & (1 << (d - 1)))) continue
+      const cand = start.slice()
+      cand[c] = 1 << (d - 1)
+      if (!consistent(cand)) return [c, d]
+    }
+  }
+  return null
+}

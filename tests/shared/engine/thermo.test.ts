@@ -54,24 +54,30 @@ describe('trade facts (common practice)', () => {
     }
   })
 
-  test.each([2, 3, 4, 5, 6, 7, 8, 9])('with no clue seeing its cells, a %i-cell thermometer leaves each of them 10 − n digits', (n) => {
-    // one thermometer of n cells on a seeded random grid; its cells stay open and see no given
-    const { puzzle, path } = singleThermometer(n, 100 + n)
-    const result = solvePath(puzzle)
-    const k = result.steps.findIndex((s) => s.technique === 'thermo-length')
-    expect(k).toBeGreaterThanOrEqual(0)
-    const after = stateAt(parsePuzzle(puzzle).puzzle!, result.steps, k + 1)
-    let checked = 0
+  test.each([2, 3, 4, 5, 6, 7, 8, 9])('a %i-cell thermometer leaves each open cell its 10 − n range; a cell no digit sees keeps all of it', (n) => {
+    // one thermometer of n cells on a seeded random grid, its cells kept open; the first seed whose
+    // path applies the length rule while some thermometer cell sees no digit at all
+    const { puzzle, path, result, k } = singleThermometer(n, 100 + n)
+    const parsed = parsePuzzle(puzzle).puzzle!
+    const before = stateAt(parsed, result.steps, k)
+    const after = stateAt(parsed, result.steps, k + 1)
+    let unseen = 0
     path.forEach((c, i) => {
+      if (after.digits[c]) return
+      const range = Array.from({ length: 10 - n }, (_, j) => i + 1 + j) // position i of n holds i … 9 − n + i
+      const seen = seenDigits(before.digits, c)
       const digits = [1, 2, 3, 4, 5, 6, 7, 8, 9].filter((d) => after.candidates[c] & (1 << (d - 1)))
-      if (after.digits[c] || !noGivenSees(puzzle.givens, c)) return
-      checked++
-      expect(digits).toEqual(Array.from({ length: 10 - n }, (_, j) => i + 1 + j))
+      // only the digits its houses already hold are missing from the range
+      expect(digits).toEqual(range.filter((d) => !seen.has(d)))
+      if (seen.size) return
+      unseen++
+      expect(digits).toEqual(range)
+      expect(digits).toHaveLength(10 - n)
     })
+    expect(unseen).toBeGreaterThanOrEqual(1)
     // the facts state the range for every cell, seen or not
     const facts = result.steps[k].facts
     expect(facts.kind === 'thermo-length' && facts.ranges.every((r) => r.max - r.min === 9 - n)).toBe(true)
-    expect(checked).toBeGreaterThanOrEqual(0)
   })
 
   test('a 5-cell thermometer whose bulb is 5 reads 5, 6, 7, 8, 9', () => {
@@ -111,6 +117,29 @@ describe('trade facts (common practice)', () => {
     }
     expect(checked).toBeGreaterThan(50)
   })
+
+  test('past thermometer bounds, each candidate on a thermometer has a smaller one before it and a larger one after it', () => {
+    // bounds read the cells' actual candidate sets, holes included, not only their ranges
+    let checked = 0
+    for (const { puzzle, result } of solved) {
+      result.steps.forEach((step, k) => {
+        if (step.difficulty <= 2) return
+        const state = stateAt(puzzle, result.steps, k)
+        for (const path of puzzle.thermometers) {
+          path.forEach((c, i) => {
+            const has = (x: number, d: number) => (state.candidates[x] & (1 << (d - 1))) !== 0
+            for (let d = 1; d <= 9; d++) {
+              if (!has(c, d)) continue
+              checked++
+              if (i > 0) expect([1, 2, 3, 4, 5, 6, 7, 8, 9].some((x) => x < d && has(path[i - 1], x))).toBe(true)
+              if (i < path.length - 1) expect([1, 2, 3, 4, 5, 6, 7, 8, 9].some((x) => x > d && has(path[i + 1], x))).toBe(true)
+            }
+          })
+        }
+      })
+    }
+    expect(checked).toBeGreaterThan(500)
+  })
 })
 
 describe('thermometers that share cells, and bounds combined with sudoku', () => {
@@ -147,18 +176,6 @@ describe('thermometers that share cells, and bounds combined with sudoku', () =>
   })
 })
 
-function noGivenSees(givens: string, cell: number): boolean {
-  const r = Math.floor(cell / 9)
-  const c = cell % 9
-  for (let x = 0; x < 81; x++) {
-    if (givens[x] === '.') continue
-    const rx = Math.floor(x / 9)
-    const cx = x % 9
-    if (rx === r || cx === c || (Math.floor(rx / 3) === Math.floor(r / 3) && Math.floor(cx / 3) === Math.floor(c / 3))) return false
-  }
-  return true
-}
-
 /** A king-adjacent path of `length` cells from `start` along which the grid rises (dir 1) or falls (dir −1) by any step. */
 function risingPath(grid: number[], start: number, length: number, dir: 1 | -1, avoid = new Set<number>(), exact?: number[]): number[] | null {
   const walk = (path: number[]): number[] | null => {
@@ -180,6 +197,10 @@ function risingPath(grid: number[], start: number, length: number, dir: 1 | -1, 
   return walk([start])
 }
 
+/**
+ * A puzzle with one n-cell thermometer (cells kept free of givens, and no given where the bulb
+ * sees it) whose path applies the length rule (step k) while some thermometer cell sees no digit.
+ */
 function singleThermometer(n: number, seed: number) {
   for (let s = seed; s < seed + 500; s++) {
     const grid = randomSolution(s)
@@ -187,10 +208,33 @@ function singleThermometer(n: number, seed: number) {
     const path = risingPath(grid, start, n, 1, new Set(), undefined)
     if (!path) continue
     const thermometers = [path.map(cellName)]
-    const givens = uniqueGivens(seededRandom(s), grid, thermometers, new Array<number>(81).fill(0), true, new Set(path))
-    return { puzzle: { title: `One thermometer of ${n}`, givens: givens.map((d) => (d ? String(d) : '.')).join(''), thermometers }, path }
+    const keepOpen = new Set([...path, ...peersOf(path[0])])
+    const givens = uniqueGivens(seededRandom(s), grid, thermometers, new Array<number>(81).fill(0), true, keepOpen)
+    const puzzle = { title: `One thermometer of ${n}`, givens: givens.map((d) => (d ? String(d) : '.')).join(''), thermometers }
+    const result = solvePath(puzzle)
+    const k = result.steps.findIndex((x) => x.technique === 'thermo-length')
+    if (k < 0) continue
+    const before = stateAt(parsePuzzle(puzzle).puzzle!, result.steps, k)
+    if (path.some((c) => !before.digits[c] && !seenDigits(before.digits, c).size)) return { puzzle, path, result, k }
   }
-  throw new Error(`no rising path of ${n}`)
+  throw new Error(`no puzzle with a rising path of ${n} and an unseen cell`)
+}
+
+/** Digits placed in the 20 cells sharing a row, column or box with a cell. */
+function seenDigits(digits: ArrayLike<number>, cell: number): Set<number> {
+  const box = (x: number) => 3 * Math.floor(x / 27) + Math.floor((x % 9) / 3)
+  const out = new Set<number>()
+  for (let x = 0; x < 81; x++) {
+    if (x === cell || !digits[x]) continue
+    if (Math.floor(x / 9) === Math.floor(cell / 9) || x % 9 === cell % 9 || box(x) === box(cell)) out.add(digits[x])
+  }
+  return out
+}
+
+/** The 20 cells sharing a row, column or box with a cell. */
+function peersOf(cell: number): number[] {
+  const box = (x: number) => 3 * Math.floor(x / 27) + Math.floor((x % 9) / 3)
+  return Array.from({ length: 81 }, (_, x) => x).filter((x) => x !== cell && (Math.floor(x / 9) === Math.floor(cell / 9) || x % 9 === cell % 9 || box(x) === box(cell)))
 }
 
 function bulbFiveThermometer() {
