@@ -16,9 +16,8 @@ export function isStaleError<T = unknown>(value: unknown): value is StaleError<T
 }
 
 /**
- * Turns a 409 from a versioned save into a StaleError holding the server's copy. The copy comes from the error
- * body when the server put it there (`current`, or `details.current`); otherwise it is fetched again, so the
- * conflict dialog never depends on how the body was shaped.
+ * Turns a 409 from a versioned save into a StaleError holding the server's copy (`details.current` of the body,
+ * see StaleBody in shared/schemas/studio.ts); a copy that doesn't parse is fetched again.
  */
 export async function withStaleCheck<T>(save: () => Promise<T>, parser: Parser<T>, fetchCurrent: () => Promise<T>): Promise<T> {
   try {
@@ -26,7 +25,7 @@ export async function withStaleCheck<T>(save: () => Promise<T>, parser: Parser<T
   } catch (error) {
     if (!isApiError(error) || error.status !== 409) throw error
     const details = error.details as { current?: unknown } | undefined
-    const current = readQuietly(parser, details?.current) ?? readQuietly(parser, details) ?? (await fetchCurrent())
+    const current = readQuietly(parser, details?.current) ?? (await fetchCurrent())
     throw new StaleError(error.message || 'Someone else saved a newer version.', current)
   }
 }

@@ -187,7 +187,7 @@ describe('PuzzleView', { timeout: 20_000 }, () => {
         const body = JSON.parse(String(init.body))
         return body.version === 5
           ? jsonResponse(200, { ...theirs, ...body, version: 6 })
-          : jsonResponse(409, { code: 'stale', message: 'Someone else saved this puzzle first.', current: theirs })
+          : jsonResponse(409, { code: 'stale', message: 'Someone else saved this puzzle first.', details: { current: theirs } })
       },
     })
     await field('Title').setValue('Morning climb (mine)')

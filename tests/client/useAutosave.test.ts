@@ -221,7 +221,7 @@ describe('useAutosave', () => {
       [`PATCH ${URL}`]: (_url, init) => {
         const body = JSON.parse(String(init.body)) as { version: number; outline: Outline }
         sent.push(body)
-        if (body.version === 3) return jsonResponse(409, { code: 'stale', message: 'Someone saved first.', current: theirs })
+        if (body.version === 3) return jsonResponse(409, { code: 'stale', message: 'Someone saved first.', details: { current: theirs } })
         return jsonResponse(200, recordFor(body.outline, { version: body.version + 1 }))
       },
       [`GET ${URL}`]: jsonResponse(200, theirs),
