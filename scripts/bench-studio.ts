@@ -14,8 +14,12 @@
  * Options: --dist <dir> reuses an existing build; --profile builds unminified and prints the functions
  * with the most self time while stepping; --trace prints the main thread's time per step by kind of
  * work (script, style, layout, paint…) from a Chromium trace; --screenshot <file.png> saves the Studio
- * at step 40; --shots <dir> saves it at 1440×900, 1280×720, 1024×768 and 390×844;
- * CHROMIUM_PATH overrides /usr/bin/chromium; BENCH_NO_FOLLOW=1 turns off "Follow the step" (to compare).
+ * at step 40; --shots <dir> saves it at 1440×900, 1280×720, 1024×768 and 390×844; --serve only serves the
+ * build and the stand-in API (printing the address) until Ctrl+C;
+ * CHROMIUM_PATH overrides /usr/bin/chromium; BENCH_NO_FOLLOW=1 turns off "Follow the step" (to compare);
+ * BENCH_JUMPS / BENCH_STEPS change how many jumps and single steps are timed (120 / 100); with --trace,
+ * BENCH_TRACE_FILE=<file.json> also records what the browser invalidated (style, layout) and saves the events.
+ * On a busy machine the wall times wander; the trace's thread CPU times are the steadier figure.
  */
 import { createServer } from 'node:http'
 import type { IncomingMessage, ServerResponse } from 'node:http'
@@ -34,8 +38,8 @@ import { generateThermo } from '../tests/helpers/generate-thermo'
 
 const SEED = 106
 const GENERATOR_OPTIONS = { thermometers: 6, minLength: 4, maxLength: 8 }
-const JUMPS = 120
-const STEPS_FORWARD = 100
+const JUMPS = Number(process.env.BENCH_JUMPS ?? 120)
+const STEPS_FORWARD = Number(process.env.BENCH_STEPS ?? 100)
 const HOLD_MS = 3000
 const PROFILE = process.argv.includes('--profile')
 const TRACE = process.argv.includes('--trace')
@@ -135,7 +139,7 @@ function existsFile(path: string): boolean {
 }
 
 interface CpuProfile {
-  nodes: { id: number; callFrame: { functionName: string; url: string; lineNumber: number } }[]
+  nodes: { id: number; callFrame: { functionName: string; url: string; lineNumber: number }; children?: number[] }[]
   samples: number[]
   timeDeltas: number[]
 }
@@ -152,6 +156,25 @@ function printProfile(profile: CpuProfile): void {
   const total = [...self.values()].reduce((a, b) => a + b, 0)
   console.log(`Profile while stepping forward (self time, ${total.toFixed(0)} ms sampled):`)
   for (const [name, t] of [...self].sort((a, b) => b[1] - a[1]).slice(0, 20)) console.log(`  ${t.toFixed(1).padStart(8)} ms  ${name}`)
+  // Who calls the busiest script functions (their callers, two levels up, by the callee's self time).
+  const parent = new Map<number, number>()
+  for (const n of profile.nodes) for (const c of n.children ?? []) parent.set(c, n.id)
+  const label = (id: number | undefined) => {
+    const f = id === undefined ? undefined : byId.get(id)?.callFrame
+    return f ? `${f.functionName || '(anonymous)'} ${f.url.split('/').pop()}:${f.lineNumber + 1}` : '(root)'
+  }
+  const scripts = [...self].filter(([name]) => /\.js:/.test(name)).sort((a, b) => b[1] - a[1]).slice(0, 3)
+  for (const [name] of scripts) {
+    const callers = new Map<string, number>()
+    profile.samples.forEach((id, i) => {
+      if (label(id) !== name) return
+      const up = parent.get(id)
+      const key = `${label(up)} ← ${label(up === undefined ? undefined : parent.get(up))}`
+      callers.set(key, (callers.get(key) ?? 0) + (profile.timeDeltas[i] ?? 0) / 1000)
+    })
+    console.log(`  callers of ${name}:`)
+    for (const [key, t] of [...callers].sort((a, b) => b[1] - a[1]).slice(0, 5)) console.log(`    ${t.toFixed(1).padStart(8)} ms  ${key}`)
+  }
 }
 
 const median = (xs: number[]) => {
@@ -315,6 +338,8 @@ interface TraceEvent {
   ph: string
   ts: number
   dur?: number
+  /** thread (CPU) time: what the work costs when nothing else competes for the cores */
+  tdur?: number
   pid: number
   tid: number
   args?: { name?: string }
@@ -328,7 +353,7 @@ async function traceBreakdown(context: BrowserContext, page: Page, units: number
     events.push(...(e.value as unknown as TraceEvent[]))
   })
   const finished = new Promise<void>((r) => cdp.once('Tracing.tracingComplete', () => r()))
-  await cdp.send('Tracing.start', { categories: 'devtools.timeline,disabled-by-default-devtools.timeline', transferMode: 'ReportEvents' })
+  await cdp.send('Tracing.start', { categories: process.env.BENCH_TRACE_FILE ? 'devtools.timeline,disabled-by-default-devtools.timeline,disabled-by-default-devtools.timeline.invalidationTracking' : 'devtools.timeline,disabled-by-default-devtools.timeline', transferMode: 'ReportEvents' })
   await run()
   await cdp.send('Tracing.end')
   await finished
@@ -357,16 +382,21 @@ async function traceBreakdown(context: BrowserContext, page: Page, units: number
   // Only the outermost slice of each kind counts (script inside script isn't counted twice).
   const mine = events.filter((e) => e.pid === main.pid && e.tid === main.tid && e.ph === 'X' && e.dur !== undefined && kinds[e.name])
   mine.sort((a, b) => a.ts - b.ts || (b.dur ?? 0) - (a.dur ?? 0))
-  const totals = new Map<string, number>()
+  const totals = new Map<string, { wall: number; cpu: number }>()
   const openUntil = new Map<string, number>()
   for (const e of mine) {
     const kind = kinds[e.name]
     if ((openUntil.get(kind) ?? -1) > e.ts) continue
     openUntil.set(kind, e.ts + (e.dur ?? 0))
-    totals.set(kind, (totals.get(kind) ?? 0) + (e.dur ?? 0) / 1000)
+    const t = totals.get(kind) ?? { wall: 0, cpu: 0 }
+    t.wall += (e.dur ?? 0) / 1000
+    t.cpu += (e.tdur ?? e.dur ?? 0) / 1000
+    totals.set(kind, t)
   }
-  const line = [...totals].sort((a, b) => b[1] - a[1]).map(([k, t]) => `${k} ${(t / units).toFixed(2)}`)
-  console.log(`  main thread per step (ms, from a trace): ${line.join(' · ')}`)
+  const sorted = [...totals].sort((a, b) => b[1].cpu - a[1].cpu)
+  const sum = (k: 'wall' | 'cpu') => sorted.reduce((n, [, t]) => n + t[k], 0) / units
+  console.log(`  main thread per → step and the frames after it (ms, from a trace; thread CPU time, wall time in brackets):`)
+  console.log(`    ${sorted.map(([k, t]) => `${k} ${(t.cpu / units).toFixed(2)} (${(t.wall / units).toFixed(2)})`).join(' · ')}; all ${sum('cpu').toFixed(2)} (${sum('wall').toFixed(2)})`)
 }
 
 async function main(): Promise<void> {
@@ -378,6 +408,14 @@ async function main(): Promise<void> {
   const client = await buildClient()
   console.log(`Client build: ${((performance.now() - t0) / 1000).toFixed(1)} s`)
   const app = await serve(client.dir, record)
+  if (process.argv.includes('--serve')) {
+    // For screenshots and poking around: the built client and the stand-in API, until Ctrl+C.
+    console.log(`Serving the Studio at ${app.url}/channels/1/outlines/1 (session: localStorage 'gridcue.session' = ${JSON.stringify(JSON.stringify(SESSION))})`)
+    await new Promise<void>((resolve) => process.once('SIGINT', () => resolve()))
+    await app.close()
+    client.cleanup()
+    return
+  }
   const browser = await chromium.launch({ executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium', args: CHROMIUM_ARGS })
   try {
     const studioUrl = `${app.url}/channels/1/outlines/1`

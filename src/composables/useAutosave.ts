@@ -1,4 +1,4 @@
-import { computed, onScopeDispose, ref, shallowRef, toValue, watch } from 'vue'
+import { computed, onScopeDispose, ref, shallowRef, toRaw, toValue, watch } from 'vue'
 import type { MaybeRefOrGetter, Ref } from 'vue'
 import { z } from 'zod'
 import { outlineSchema } from '@shared/schemas/outline'
@@ -74,14 +74,16 @@ export function useAutosave(options: AutosaveOptions) {
    * browser's unsaved copy when it has one. A copy based on an older version opens a conflict.
    */
   function start(record: OutlineRecord): Outline {
+    // The plain document, as the editor keeps it (a record from the query cache is a reactive proxy).
+    const doc = toRaw(record.outline)
     version.value = record.version
-    baseline.value = record.outline
-    opened = record.outline
+    baseline.value = doc
+    opened = doc
     const local = readLocal()
-    if (!local || sameData(local.outline, record.outline)) {
+    if (!local || sameData(local.outline, doc)) {
       removeLocal()
       status.value = 'saved'
-      return record.outline
+      return doc
     }
     restoredFrom.value = local.savedAt
     if (local.baseVersion !== record.version) {
@@ -179,7 +181,7 @@ export function useAutosave(options: AutosaveOptions) {
     if (!c) return
     conflict.value = null
     version.value = c.theirs.version
-    baseline.value = c.theirs.outline
+    baseline.value = toRaw(c.theirs.outline)
     status.value = 'unsaved'
     if (options.outline.value !== c.mine) options.replace(c.mine)
     await saveNow()
@@ -191,9 +193,9 @@ export function useAutosave(options: AutosaveOptions) {
     if (!c) return
     conflict.value = null
     version.value = c.theirs.version
-    baseline.value = c.theirs.outline
+    baseline.value = toRaw(c.theirs.outline)
     clearTimeout(timer)
-    options.replace(c.theirs.outline)
+    options.replace(baseline.value)
     removeLocal()
     status.value = 'saved'
     restoredFrom.value = null

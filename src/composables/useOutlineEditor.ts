@@ -1,4 +1,4 @@
-import { computed, onScopeDispose, ref, shallowRef } from 'vue'
+import { computed, onScopeDispose, ref, shallowRef, toRaw } from 'vue'
 import { applyEdit, timeline } from '@shared/script'
 import type { Outline, OutlineEdit } from '@shared/script'
 
@@ -39,7 +39,9 @@ export function useOutlineEditor(options: OutlineEditorOptions = {}) {
 
   /** Starts editing a document afresh: no history. */
   function load(next: Outline): void {
-    outline.value = next
+    // Documents often arrive from reactive state (the query cache hands out deep proxies). Keep the plain
+    // object: every read of a proxy is tracked, and the replay and the script read thousands of fields a step.
+    outline.value = toRaw(next)
     past.value = []
     future.value = []
     error.value = null
@@ -61,11 +63,32 @@ export function useOutlineEditor(options: OutlineEditorOptions = {}) {
     return true
   }
 
+  /**
+   * Runs several edits as one: all of them or none (the first refusal leaves the outline as it was and sets
+   * `error`), and one undo takes them all back (fitting the script to a target length folds and hides many
+   * lines at once). Returns whether they applied.
+   */
+  function applyAll(edits: readonly OutlineEdit[]): boolean {
+    const current = outline.value
+    if (!current || edits.length === 0) return false
+    let next = current
+    try {
+      for (const edit of edits) next = applyEdit(next, edit)
+    } catch (e) {
+      error.value = e instanceof Error ? e.message : String(e)
+      return false
+    }
+    error.value = null
+    commit(current, next, null)
+    return true
+  }
+
   /** Puts a whole document in place as one undoable step (e.g. taking the server's copy). */
   function replace(next: Outline): void {
     const current = outline.value
     if (!current) return load(next)
-    if (current !== next) commit(current, next, null)
+    const plain = toRaw(next)
+    if (current !== plain) commit(current, plain, null)
   }
 
   function commit(current: Outline, next: Outline, key: string | null): void {
@@ -120,7 +143,7 @@ export function useOutlineEditor(options: OutlineEditorOptions = {}) {
     onScopeDispose(() => window.removeEventListener('keydown', onKeydown))
   }
 
-  return { outline, timing, error, canUndo, canRedo, load, apply, replace, undo, redo, clearError }
+  return { outline, timing, error, canUndo, canRedo, load, apply, applyAll, replace, undo, redo, clearError }
 }
 
 export type OutlineEditor = ReturnType<typeof useOutlineEditor>

@@ -10,6 +10,8 @@ declare module 'vue-router' {
     requiresAuth?: boolean
     /** Roles allowed in the route's `:channelId` channel (or, without that param, in any channel). */
     roles?: Role[]
+    /** A workspace screen: uses the whole window width (and, on a large screen, its height) instead of the reading column. */
+    wide?: boolean
   }
 }
 
@@ -52,7 +54,7 @@ export const routes: RouteRecordRaw[] = [
     name: 'studio',
     component: () => import('@/views/StudioView.vue'),
     props: (route) => ({ channelId: Number(route.params.channelId), outlineId: Number(route.params.outlineId) }),
-    meta: { requiresAuth: true, roles: ['owner', 'presenter', 'editor'] },
+    meta: { requiresAuth: true, roles: ['owner', 'presenter', 'editor'], wide: true },
   },
   { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/views/NotFoundView.vue') },
 ]

@@ -144,4 +144,39 @@ describe('GridBoard', () => {
     expect(wrapper.findAll('.grid-board__candidate')).toHaveLength(79)
     expect(wrapper.findAll('text').length).toBeLessThan(100)
   })
+
+  it('should redraw only the cells a change touches, and keep every cell current', async () => {
+    const digits = empty()
+    const givens = empty()
+    digits[cellIndex(3, 4)] = 7
+    givens[cellIndex(3, 4)] = 1
+    const candidates = new Array<number>(81).fill(mask(1, 2, 3))
+    const wrapper = mount(GridBoard, { props: { digits, givens, thermometers: [], candidates, marks: [cellIndex(5, 5), cellIndex(9, 9)] } })
+    const rect = (r: number, c: number) => cell(wrapper, r, c).element
+    const untouched = rect(1, 1)
+    const given = wrapper.find('.grid-board__digit--given').element
+
+    // The next step: r5c5 gets a 2, r9c9 loses a candidate and is the focus.
+    const next = [...digits]
+    next[cellIndex(5, 5)] = 2
+    const fewer = [...candidates]
+    fewer[cellIndex(9, 9)] = mask(1, 3)
+    await wrapper.setProps({ digits: next, candidates: fewer, focus: [cellIndex(9, 9)], placed: [cellIndex(5, 5)] })
+
+    expect(cell(wrapper, 5, 5).attributes('aria-label')).toBe('r5c5, 2, placed now')
+    expect(cell(wrapper, 9, 9).attributes('aria-label')).toBe('r9c9, empty, candidates 1 3, focus')
+    expect(cell(wrapper, 9, 9).classes()).toContain('grid-board__cell--focus')
+    expect(wrapper.findAll('.grid-board__digit--deduced').map((t) => t.text())).toEqual(['2'])
+    expect(wrapper.findAll('.grid-board__candidate').map((t) => t.text())).toEqual(['13'])
+    // Cells the step didn't touch keep their elements.
+    expect(rect(1, 1)).toBe(untouched)
+    expect(wrapper.find('.grid-board__digit--given').element).toBe(given)
+
+    // And back: nothing stale is left behind.
+    await wrapper.setProps({ digits, candidates, focus: [], placed: [] })
+    expect(cell(wrapper, 5, 5).attributes('aria-label')).toBe('r5c5, empty, candidates 1 2 3')
+    expect(cell(wrapper, 9, 9).classes()).toContain('grid-board__cell--plain')
+    expect(wrapper.findAll('.grid-board__digit--deduced')).toHaveLength(0)
+    expect(wrapper.findAll('.grid-board__candidate').map((t) => t.text())).toEqual(['123', '123'])
+  })
 })
