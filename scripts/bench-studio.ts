@@ -28,7 +28,7 @@ import { mkdirSync, mkdtempSync, readFileSync, rmSync, statSync, writeFileSync }
 import { tmpdir } from 'node:os'
 import { extname, join, normalize } from 'node:path'
 import { gzipSync } from 'node:zlib'
-import { chromium } from 'playwright-core'
+import { launchChromium } from './lib/chromium'
 import type { Browser, BrowserContext, Page } from 'playwright-core'
 import { build } from 'vite'
 import { parsePuzzle, solvePath } from '../shared/engine/index'
@@ -44,15 +44,6 @@ const HOLD_MS = 3000
 const PROFILE = process.argv.includes('--profile')
 const TRACE = process.argv.includes('--trace')
 
-const CHROMIUM_ARGS = [
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-quic',
-  '--no-first-run',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-]
 
 function makeRecord(): OutlineRecord {
   const generated = generateThermo(SEED, GENERATOR_OPTIONS)
@@ -416,7 +407,7 @@ async function main(): Promise<void> {
     client.cleanup()
     return
   }
-  const browser = await chromium.launch({ executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium', args: CHROMIUM_ARGS })
+  const browser = await launchChromium()
   try {
     const studioUrl = `${app.url}/channels/1/outlines/1`
     const js = await firstLoadJs(browser, `${studioUrl}?step=0`)

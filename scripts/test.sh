@@ -16,7 +16,12 @@ if [ -z "${DATABASE_URL:-}" ]; then
 else
   log "using the database at DATABASE_URL for tests (it will be emptied)"
 fi
-cleanup() { [ -n "$STARTED_CLUSTER" ] && stop_cluster "$STARTED_CLUSTER"; }
+cleanup() {
+  [ -n "$STARTED_CLUSTER" ] || return 0
+  stop_cluster "$STARTED_CLUSTER"
+  # a cluster parked in /var/tmp belongs to a checkout the postgres user can't enter (often a temporary clone): don't leave it behind
+  case "$STARTED_CLUSTER" in /var/tmp/gridcue-pg-*) rm -rf "$(dirname "$STARTED_CLUSTER")" ;; esac
+}
 trap cleanup EXIT
 
 if ! command -v chromium >/dev/null 2>&1; then apt_install "Chromium (browser tests)" chromium; fi

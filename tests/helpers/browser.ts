@@ -1,25 +1,12 @@
 import type { AddressInfo } from 'node:net'
 import { afterAll, beforeAll } from 'vitest'
 import type { Server } from 'node:http'
-import { chromium, type Browser } from 'playwright-core'
+import type { Browser } from 'playwright-core'
+import { launchChromium } from '../../scripts/lib/chromium'
 import { createApp } from '../../server/app'
 import type { Db } from '../../server/db/knex'
 import { testEnginePool } from './api'
 import { openTestDb, resetWithDemo, testConfig } from './db'
-
-/** Flags Chromium needs on this closed, GPU-less machine (see the team's stack notes). */
-const CHROMIUM_ARGS = [
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-quic',
-  '--no-first-run',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-]
-
-export const launchChromium = (): Promise<Browser> =>
-  chromium.launch({ executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium', args: CHROMIUM_ARGS })
 
 /** Serves the built client (dist/) and the API, with a one-thread engine pool, on a free loopback port. */
 export async function serveApp(db: Db): Promise<{ url: string; close: () => Promise<void> }> {
