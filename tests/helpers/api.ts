@@ -5,7 +5,7 @@ import type { Db } from '../../server/db/knex'
 import { createEnginePool, type EnginePool } from '../../server/workers/engine-pool'
 import { DEMO_PASSWORD, DEMO_USERS } from '../../seeds/01_demo_channel'
 import type { Role } from '../../shared/schemas/auth'
-import { testConfig } from './db'
+import { openTestDb, resetWithDemo, testConfig } from './db'
 
 export const buildTestApp = (db: Db, engine?: EnginePool): Express => createApp({ db, config: testConfig(), engine, clientDir: '/nonexistent' })
 
@@ -29,4 +29,36 @@ export async function tokensForAll(app: Express): Promise<Record<Actor, string |
   const out: Record<Actor, string | undefined> = { anonymous: undefined, viewer: '', editor: '', presenter: '', owner: '' }
   for (const role of ['viewer', 'editor', 'presenter', 'owner'] as const) out[role] = await tokenFor(app, role)
   return out
+}
+
+export interface ApiSuite {
+  db: Db
+  app: Express
+  engine: EnginePool
+  /** bearer headers per demo role (undefined for anonymous) */
+  tokens: Record<Actor, string | undefined>
+  /** the demo channel */
+  channelId: number
+  close: () => Promise<void>
+}
+
+/** Fresh demo data, an app (with a one-thread engine pool) and every role signed in; call close() in afterAll. */
+export async function openApiSuite(): Promise<ApiSuite> {
+  const db = await openTestDb()
+  await resetWithDemo(db)
+  const engine = testEnginePool()
+  const app = buildTestApp(db, engine)
+  const tokens = await tokensForAll(app)
+  const channelId = (await db('channels').where({ slug: 'marigold-logic' }).first())!.id
+  return {
+    db,
+    app,
+    engine,
+    tokens,
+    channelId,
+    close: async () => {
+      await engine.destroy()
+      await db.destroy()
+    },
+  }
 }

@@ -2,21 +2,18 @@ import request from 'supertest'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Express } from 'express'
 import type { Db } from '../../server/db/knex'
-import { ACTORS, buildTestApp, tokensForAll, type Actor } from '../helpers/api'
-import { openTestDb, resetWithDemo } from '../helpers/db'
+import { ACTORS, openApiSuite, type Actor, type ApiSuite } from '../helpers/api'
 
+let suite: ApiSuite
 let db: Db
 let app: Express
-let tokens: Record<Actor, string | undefined>
+let tokens: ApiSuite['tokens']
 let channelId: number
 beforeAll(async () => {
-  db = await openTestDb()
-  await resetWithDemo(db)
-  app = buildTestApp(db)
-  tokens = await tokensForAll(app)
-  channelId = (await db('channels').where({ slug: 'marigold-logic' }).first())!.id
+  suite = await openApiSuite()
+  ;({ db, app, tokens, channelId } = suite)
 })
-afterAll(() => db.destroy())
+afterAll(() => suite.close())
 
 const get = (path: string, actor: Actor) => {
   const req = request(app).get(path)

@@ -2,36 +2,28 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Express } from 'express'
 import type { Db } from '../../server/db/knex'
 import { makeOutline } from '../../server/services/outlines'
-import type { Engine, EnginePool } from '../../server/workers/engine-pool'
+import type { Engine } from '../../server/workers/engine-pool'
 import { parsePuzzle, solvePath } from '../../shared/engine/index'
 import { outlineSchema, type Outline } from '../../shared/schemas/outline'
 import type { OutlineRecord, PuzzleRecord } from '../../shared/schemas/studio'
 import { buildOutline, editLineText, hideLine, timeline } from '../../shared/script/index'
-import { ACTORS, buildTestApp, demoEmail, testEnginePool, tokensForAll, type Actor } from '../helpers/api'
-import { openTestDb, resetWithDemo } from '../helpers/db'
+import { ACTORS, demoEmail, openApiSuite, type Actor, type ApiSuite } from '../helpers/api'
 import { draftOf, fixture, otherChannelOfOwner, postPuzzle, send } from '../helpers/studio'
 
-let db: Db
-let engine: EnginePool
-let app: Express
-let tokens: Record<Actor, string | undefined>
-let channelId: number
 let thermo: PuzzleRecord
 let first: OutlineRecord
+let suite: ApiSuite
+let db: Db
+let app: Express
+let tokens: ApiSuite['tokens']
+let channelId: number
 beforeAll(async () => {
-  db = await openTestDb()
-  await resetWithDemo(db)
-  engine = testEnginePool()
-  app = buildTestApp(db, engine)
-  tokens = await tokensForAll(app)
-  channelId = (await db('channels').where({ slug: 'marigold-logic' }).first())!.id
+  suite = await openApiSuite()
+  ;({ db, app, tokens, channelId } = suite)
   thermo = await postPuzzle(app, tokens.owner!, channelId, draftOf('GT13', { title: 'Four Fevers', author: 'Ilse Marchetti', link: 'https://puzzles.example/four-fevers' }))
   first = (await as('presenter').post(outlinesOf(thermo.id), {})).body
 })
-afterAll(async () => {
-  await engine.destroy()
-  await db.destroy()
-})
+afterAll(() => suite.close())
 
 const as = (actor: Actor) => ({
   get: (path: string) => send(app, tokens, actor, 'get', path),
@@ -158,7 +150,7 @@ describe('POST /api/channels/:channelId/puzzles/:puzzleId/outlines', () => {
   })
 
   it('should start the engine threads again after the pool was destroyed', async () => {
-    await engine.destroy()
+    await suite.engine.destroy()
     const again = await as('owner').post(outlinesOf(thermo.id), { name: 'After restart' })
     expect(again.status).toBe(201)
     expect(again.body.outline.steps).toEqual(first.outline.steps)

@@ -1,28 +1,19 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Express } from 'express'
 import type { Db } from '../../server/db/knex'
-import type { EnginePool } from '../../server/workers/engine-pool'
-import { ACTORS, buildTestApp, demoEmail, testEnginePool, tokensForAll, type Actor } from '../helpers/api'
-import { openTestDb, resetWithDemo } from '../helpers/db'
+import { ACTORS, demoEmail, openApiSuite, type Actor, type ApiSuite } from '../helpers/api'
 import { draftOf, fixture, otherChannelOfOwner, postPuzzle, send, withoutSolution } from '../helpers/studio'
 
+let suite: ApiSuite
 let db: Db
-let engine: EnginePool
 let app: Express
-let tokens: Record<Actor, string | undefined>
+let tokens: ApiSuite['tokens']
 let channelId: number
 beforeAll(async () => {
-  db = await openTestDb()
-  await resetWithDemo(db)
-  engine = testEnginePool()
-  app = buildTestApp(db, engine)
-  tokens = await tokensForAll(app)
-  channelId = (await db('channels').where({ slug: 'marigold-logic' }).first())!.id
+  suite = await openApiSuite()
+  ;({ db, app, tokens, channelId } = suite)
 })
-afterAll(async () => {
-  await engine.destroy()
-  await db.destroy()
-})
+afterAll(() => suite.close())
 
 const as = (actor: Actor) => ({
   get: (path: string) => send(app, tokens, actor, 'get', path),
