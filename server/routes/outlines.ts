@@ -1,10 +1,11 @@
 import { Router } from 'express'
-import { outlineCreateSchema, outlineSaveSchema, type OutlineCreate, type OutlineSave } from '../../shared/schemas/studio'
+import { cueSheetQuerySchema, outlineCreateSchema, outlineSaveSchema, type CueSheetQuery, type OutlineCreate, type OutlineSave } from '../../shared/schemas/studio'
 import type { JwtPassport } from '../auth/passport'
 import { requireRole, STUDIO_MAKERS, STUDIO_TEAM } from '../auth/require-role'
 import { requireUser } from '../auth/require-user'
 import type { Db } from '../db/knex'
 import { idParams, validate } from '../middleware/validate'
+import { cueSheetOf } from '../services/cue-sheets'
 import { duplicateOutline, makeOutline, outlineOf, outlinesOf, removeOutline, saveOutline } from '../services/outlines'
 import type { Engine } from '../workers/engine-pool'
 
@@ -35,6 +36,12 @@ export function outlineRoutes(db: Db, passport: JwtPassport, engine: Engine): Ro
   router.patch('/outlines/:outlineId', signedIn, team, validate({ params: outline, body: outlineSaveSchema }), async (_req, res) => {
     const { channelId, outlineId } = res.locals.params as OutlineParams
     res.json(await saveOutline(db, channelId, outlineId, res.locals.body as OutlineSave))
+  })
+  router.get('/outlines/:outlineId/cue-sheet.pdf', signedIn, team, validate({ params: outline, query: cueSheetQuerySchema }), async (_req, res) => {
+    const { channelId, outlineId } = res.locals.params as OutlineParams
+    const { thumbnails } = res.locals.query as CueSheetQuery
+    const { filename, pdf } = await cueSheetOf(db, channelId, outlineId, thumbnails)
+    res.type('application/pdf').attachment(filename).send(pdf)
   })
   router.post('/outlines/:outlineId/duplicate', signedIn, makers, validate({ params: outline }), async (req, res) => {
     const { channelId, outlineId } = res.locals.params as OutlineParams

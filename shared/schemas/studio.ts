@@ -10,6 +10,7 @@
  *   POST   /puzzles/:puzzleId/outlines       owner, presenter          body OutlineCreate → OutlineRecord (201); engine runs in a worker pool
  *   GET    /outlines/:outlineId              owner, presenter, editor  → OutlineRecord
  *   PATCH  /outlines/:outlineId              owner, presenter, editor  body OutlineSave → OutlineRecord; stale version → 409 StaleBody
+ *   GET    /outlines/:outlineId/cue-sheet.pdf owner, presenter, editor ?thumbnails=1 → the printable cue sheet (PDF)
  *   POST   /outlines/:outlineId/duplicate    owner, presenter          → OutlineRecord (201)
  *   DELETE /outlines/:outlineId              owner, presenter          → 204
  * Viewers see puzzles only through published episodes (later work).
@@ -91,6 +92,15 @@ export const outlineSaveSchema = z.object({
   outline: outlineSchema,
 })
 export type OutlineSave = z.infer<typeof outlineSaveSchema>
+
+export const cueSheetQuerySchema = z.object({
+  /** draw the grid before each line beside it */
+  thumbnails: z
+    .enum(['0', '1'], { message: 'thumbnails must be 0 or 1' })
+    .optional()
+    .transform((v) => v === '1'),
+})
+export type CueSheetQuery = z.infer<typeof cueSheetQuerySchema>
 
 /** Body of a 409: the copy now on the server, so the client can show both versions. */
 export interface StaleBody<T> {

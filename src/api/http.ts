@@ -46,7 +46,8 @@ export function setHttpAuth(next: HttpAuth): void {
   auth = next
 }
 
-async function request<T>(method: Method, path: string, parser: Parser<T>, body: unknown, options: RequestOptions = {}): Promise<T> {
+/** Sends a request with the session's token; any non-2xx answer becomes an ApiError. */
+async function send(method: Method, path: string, body: unknown, options: RequestOptions = {}): Promise<Response> {
   const headers: Record<string, string> = { Accept: 'application/json' }
   if (body !== undefined) headers['Content-Type'] = 'application/json'
   const token = options.auth === false ? null : auth.getToken()
@@ -65,12 +66,16 @@ async function request<T>(method: Method, path: string, parser: Parser<T>, body:
     if (error instanceof DOMException && error.name === 'AbortError') throw error
     throw new ApiError(0, 'network-error', "Can't reach Gridcue. Check your connection and try again.")
   }
-
-  const data = await readJson(response)
   if (!response.ok) {
     if (response.status === 401 && token) auth.onUnauthorized()
-    throw toApiError(response.status, data)
+    throw toApiError(response.status, await readJson(response))
   }
+  return response
+}
+
+async function request<T>(method: Method, path: string, parser: Parser<T>, body: unknown, options: RequestOptions = {}): Promise<T> {
+  const response = await send(method, path, body, options)
+  const data = await readJson(response)
   try {
     return parser.parse(data)
   } catch {
@@ -113,4 +118,6 @@ export const http = {
   put: <T>(path: string, body: unknown, parser: Parser<T>, options?: RequestOptions) => request('PUT', path, parser, body, options),
   patch: <T>(path: string, body: unknown, parser: Parser<T>, options?: RequestOptions) => request('PATCH', path, parser, body, options),
   delete: <T>(path: string, parser: Parser<T>, options?: RequestOptions) => request('DELETE', path, parser, undefined, options),
+  /** A file the server makes (e.g. a PDF), fetched with the session's token. */
+  getBlob: async (path: string, options?: RequestOptions): Promise<Blob> => (await send('GET', path, undefined, options)).blob(),
 }

@@ -37,3 +37,8 @@ export function duplicateOutline(channelId: number, outlineId: number): Promise<
 export function removeOutline(channelId: number, outlineId: number): Promise<void> {
   return http.delete(`${channelBase(channelId)}/outlines/${outlineId}`, noContent)
 }
+
+/** The printable cue sheet (PDF), optionally with a grid thumbnail beside each line. */
+export function getCueSheet(channelId: number, outlineId: number, thumbnails: boolean): Promise<Blob> {
+  return http.getBlob(`${channelBase(channelId)}/outlines/${outlineId}/cue-sheet.pdf?thumbnails=${thumbnails ? 1 : 0}`)
+}

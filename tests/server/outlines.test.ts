@@ -69,6 +69,11 @@ describe('role matrix', () => {
       },
     },
     {
+      label: 'GET /outlines/:outlineId/cue-sheet.pdf',
+      expected: { anonymous: 401, viewer: 403, editor: 200, presenter: 200, owner: 200 },
+      call: (actor) => as(actor).get(`${outlinePath(first.id)}/cue-sheet.pdf`),
+    },
+    {
       label: 'POST /outlines/:outlineId/duplicate',
       expected: { anonymous: 401, viewer: 403, editor: 403, presenter: 201, owner: 201 },
       call: (actor) => as(actor).post(`${outlinePath(first.id)}/duplicate`, {}),
@@ -246,6 +251,23 @@ describe('PATCH /api/channels/:channelId/outlines/:outlineId', () => {
     expect(retry.status).toBe(200)
     expect(retry.body.outline.lines[1].text).toBe('The editor was here.')
     expect(retry.body.outline.lines[2].text).toBe('The presenter was here.')
+  })
+})
+
+describe('GET /api/channels/:channelId/outlines/:outlineId/cue-sheet.pdf', () => {
+  it('should send a PDF attachment named after the puzzle and take', async () => {
+    const res = await as('editor').get(`${outlinePath(first.id)}/cue-sheet.pdf?thumbnails=1`).buffer(true)
+    expect(res.status).toBe(200)
+    expect(res.headers['content-type']).toBe('application/pdf')
+    expect(res.headers['content-disposition']).toBe('attachment; filename=four-fevers-take-1-cue-sheet.pdf')
+    // PDF 1.x files open with "%PDF-" (ISO 32000-1, section 7.5.2)
+    expect(Buffer.from(res.body).subarray(0, 5).toString('latin1')).toBe('%PDF-')
+  })
+
+  it('should answer 400 for a thumbnails value other than 0 or 1', async () => {
+    const res = await as('editor').get(`${outlinePath(first.id)}/cue-sheet.pdf?thumbnails=yes`)
+    expect(res.status).toBe(400)
+    expect(res.body.message).toBe('query.thumbnails: thumbnails must be 0 or 1')
   })
 })
 

@@ -1,0 +1,90 @@
+import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest'
+import pkg from 'webvtt-parser'
+import { useOutlineExports } from '@/composables/useOutlineExports'
+import { outlineFor } from '../helpers/studio-outline'
+import { jsonResponse, mockApi } from './support'
+
+const { WebVTTParser } = pkg
+
+interface Download {
+  name: string
+  blob: Blob
+}
+
+let downloads: Download[]
+beforeEach(() => {
+  downloads = []
+  const blobs = new Map<string, Blob>()
+  vi.spyOn(URL, 'createObjectURL').mockImplementation((blob) => {
+    const url = `blob:test/${blobs.size}`
+    blobs.set(url, blob as Blob)
+    return url
+  })
+  vi.spyOn(URL, 'revokeObjectURL').mockImplementation(() => {})
+  vi.spyOn(HTMLAnchorElement.prototype, 'click').mockImplementation(function (this: HTMLAnchorElement) {
+    downloads.push({ name: this.download, blob: blobs.get(this.getAttribute('href')!)! })
+  })
+})
+afterEach(() => {
+  vi.restoreAllMocks()
+  vi.unstubAllGlobals()
+})
+
+function setup(saveFirst = vi.fn(async () => {})) {
+  const doc = outlineFor('PE01')
+  const exports = useOutlineExports({
+    channelId: () => 1,
+    outlineId: () => 31,
+    outline: () => doc,
+    take: () => 'First take',
+    saveFirst,
+  })
+  return { doc, exports, saveFirst }
+}
+
+describe('useOutlineExports', () => {
+  it('should download WebVTT chapters of the current document that a third-party WebVTT parser reads', async () => {
+    const { exports } = setup()
+    await exports.exportAs('vtt-chapters')
+    expect(downloads).toHaveLength(1)
+    expect(downloads[0]!.name).toBe('project-euler-96-grid-01-first-take-chapters.vtt')
+    // webvtt-parser (npm) implements the W3C WebVTT parsing rules
+    const parsed = new WebVTTParser().parse(await downloads[0]!.blob.text(), 'metadata')
+    expect(parsed.errors).toEqual([])
+    expect(parsed.cues[0].startTime).toBe(0)
+    expect(parsed.cues.length).toBeGreaterThan(1)
+  })
+
+  it('should put the setter credit and chapter lines starting at 0:00 in the description', async () => {
+    const { exports } = setup()
+    await exports.exportAs('description')
+    const text = await downloads[0]!.blob.text()
+    // common practice: chapter lines in a video description are "m:ss Title", the first at 0:00
+    expect(text).toMatch(/^0:00 \S/m)
+    expect(downloads[0]!.name).toBe('project-euler-96-grid-01-first-take-description.txt')
+  })
+
+  it('should save pending edits before asking the server for the cue sheet with grids', async () => {
+    const fetchMock = mockApi({
+      'GET /api/channels/1/outlines/31/cue-sheet.pdf?thumbnails=1': () =>
+        new Response(new Blob(['%PDF-1.3 test']), { status: 200, headers: { 'Content-Type': 'application/pdf' } }),
+    })
+    const { exports, saveFirst } = setup()
+    await exports.exportAs('cue-sheet-grids')
+    expect(saveFirst).toHaveBeenCalledOnce()
+    expect(fetchMock).toHaveBeenCalledOnce()
+    expect(downloads[0]!.name).toBe('project-euler-96-grid-01-first-take-cue-sheet.pdf')
+    expect(await downloads[0]!.blob.text()).toBe('%PDF-1.3 test')
+  })
+
+  it('should show the server message when the cue sheet fails, and download nothing', async () => {
+    mockApi({
+      'GET /api/channels/1/outlines/31/cue-sheet.pdf?thumbnails=0': jsonResponse(403, { code: 'forbidden', message: 'Your role in this channel (viewer) does not allow this' }),
+    })
+    const { exports } = setup()
+    await exports.exportAs('cue-sheet')
+    expect(exports.error.value).toBe('Your role in this channel (viewer) does not allow this')
+    expect(exports.busy.value).toBe(false)
+    expect(downloads).toEqual([])
+  })
+})
