@@ -3,6 +3,9 @@ import type { Role } from '../../shared/schemas/auth'
 import type { Db } from '../db/knex'
 import { findRole } from '../db/memberships'
 import { forbidden, HttpError, notFound } from '../errors'
+import { idParams } from '../middleware/validate'
+
+const channelIdParams = idParams('channelId')
 
 export const ALL_ROLES: readonly Role[] = ['owner', 'presenter', 'editor', 'viewer']
 /** who works on puzzles and outlines; viewers see them only through published episodes */
@@ -16,8 +19,9 @@ export const STUDIO_MAKERS: readonly Role[] = ['owner', 'presenter']
  */
 export function requireRole(db: Db, roles: readonly Role[]): RequestHandler {
   return async (req, res, next) => {
-    const channelId = Number(req.params.channelId)
-    if (!Number.isInteger(channelId) || channelId <= 0) throw new HttpError(400, 'invalid-input', 'Channel id must be a positive whole number')
+    const parsed = channelIdParams.safeParse(req.params)
+    if (!parsed.success) throw new HttpError(400, 'invalid-input', `params.channelId: ${parsed.error.issues[0]?.message}`)
+    const { channelId } = parsed.data
     if (!req.user) throw new HttpError(401, 'unauthenticated', 'Please sign in first.')
     const role = await findRole(db, req.user.id, channelId)
     if (!role) throw notFound('Channel')

@@ -26,12 +26,12 @@ export function validate(schemas: Schemas): RequestHandler {
   }
 }
 
-// ids are PostgreSQL integers: anything larger would fail in the database instead of here
-const id = z.coerce
-  .number({ message: 'must be a positive whole number' })
-  .int({ message: 'must be a positive whole number' })
-  .min(1, { message: 'must be a positive whole number' })
-  .max(2_147_483_647, { message: 'is too large to be an id' })
+// ids are PostgreSQL integers written in plain digits: anything larger would fail in the database instead of here
+const id = z
+  .string()
+  .regex(/^[1-9][0-9]*$/, { message: 'must be a positive whole number' })
+  .transform(Number)
+  .pipe(z.number().max(2_147_483_647, { message: 'is too large to be an id' }))
 
 /** A params schema of numeric ids, e.g. `idParams('channelId', 'puzzleId')`. */
 export function idParams<K extends string>(...names: K[]) {

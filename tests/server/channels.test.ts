@@ -57,7 +57,13 @@ describe('GET /api/channels/:channelId', () => {
   it('should answer 400 for an id that is not a number', async () => {
     const res = await get('/api/channels/abc', 'owner')
     expect(res.status).toBe(400)
-    expect(res.body.message).toMatch(/positive whole number/)
+    expect(res.body.message).toBe('params.channelId: must be a positive whole number')
+  })
+
+  it('should answer 400, not a database error, for an id beyond PostgreSQL integers', async () => {
+    const res = await get('/api/channels/99999999999', 'owner')
+    expect(res.status).toBe(400)
+    expect(res.body.message).toBe('params.channelId: is too large to be an id')
   })
 })
 
