@@ -266,6 +266,26 @@ describe('PuzzleView', { timeout: 20_000 }, () => {
     await flushPromises()
     expect(lastCall(fetchMock, 'POST').url).toBe('/api/channels/1/outlines/9/duplicate')
   })
+
+  it('should ask once more before deleting a take, and send the delete only when confirmed', async () => {
+    const summary = { id: 9, puzzleId: 42, name: 'Take 1', status: 'solved', stepCount: 61, totalMs: 754_000, version: 2, updatedAt: '2025-05-01T10:00:00.000Z' }
+    const { wrapper, fetchMock } = await open('/channels/1/puzzles/42', {
+      'GET /api/channels/1/puzzles/42': jsonResponse(200, recordFixture({ outlineCount: 1 })),
+      'GET /api/channels/1/puzzles/42/outlines': jsonResponse(200, [summary]),
+      'DELETE /api/channels/1/outlines/9': () => new Response(null, { status: 204 }),
+    })
+    const deletes = () => fetchMock.mock.calls.filter(([, init]) => init?.method === 'DELETE')
+
+    await wrapper.find('button[aria-label="Delete Take 1…"]').trigger('click')
+    expect(wrapper.text()).toContain('Delete “Take 1” and its edits?')
+    await wrapper.findAll('button').find((b) => b.text() === 'Keep')!.trigger('click')
+    expect(deletes()).toHaveLength(0)
+
+    await wrapper.find('button[aria-label="Delete Take 1…"]').trigger('click')
+    await wrapper.find('button[aria-label="Delete Take 1 for good"]').trigger('click')
+    await flushPromises()
+    expect(deletes().map(([url]) => String(url))).toEqual(['/api/channels/1/outlines/9'])
+  })
 })
 
 /** The smallest outline record the shared schema accepts. */
