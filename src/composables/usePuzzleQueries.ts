@@ -2,7 +2,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/vue-query'
 import { toValue } from 'vue'
 import type { MaybeRefOrGetter } from 'vue'
 import type { PuzzleDraft, PuzzleRecord } from '@shared/schemas/studio'
-import { createPuzzle, getPuzzle, listPuzzles, updatePuzzle } from '@/api/puzzles'
+import { createPuzzle, deletePuzzle, getPuzzle, listPuzzles, updatePuzzle } from '@/api/puzzles'
 import { puzzleKeys } from '@/api/queryKeys'
 
 /** A channel's puzzles, for the Library. */
@@ -40,6 +40,19 @@ export function useSavePuzzle(channelId: MaybeRefOrGetter<number>) {
     onSuccess: (record) => {
       client.setQueryData(puzzleKeys.detail(record.channelId, record.id), record)
       void client.invalidateQueries({ queryKey: puzzleKeys.all(record.channelId), exact: true })
+    },
+  })
+}
+
+/** Deletes a puzzle with its outlines; the Library list refreshes. */
+export function useRemovePuzzle(channelId: MaybeRefOrGetter<number>) {
+  const client = useQueryClient()
+  return useMutation({
+    mutationFn: (puzzleId: number) => deletePuzzle(toValue(channelId), puzzleId),
+    onSuccess: (_void, puzzleId) => {
+      const channel = toValue(channelId)
+      client.removeQueries({ queryKey: puzzleKeys.detail(channel, puzzleId) })
+      void client.invalidateQueries({ queryKey: puzzleKeys.all(channel), exact: true })
     },
   })
 }

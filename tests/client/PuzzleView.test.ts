@@ -267,6 +267,24 @@ describe('PuzzleView', { timeout: 20_000 }, () => {
     expect(lastCall(fetchMock, 'POST').url).toBe('/api/channels/1/outlines/9/duplicate')
   })
 
+  it('should delete the puzzle only after the second confirmation, then go back to the Library', async () => {
+    const { wrapper, fetchMock, button, router } = await open('/channels/1/puzzles/42', {
+      'GET /api/channels/1/puzzles/42': jsonResponse(200, recordFixture()),
+      'GET /api/channels/1/puzzles/42/outlines': jsonResponse(200, []),
+      'DELETE /api/channels/1/puzzles/42': () => new Response(null, { status: 204 }),
+      'GET /api/channels/1/puzzles': jsonResponse(200, []),
+      'GET /api/channels/1': jsonResponse(200, { id: 1, name: 'Marigold Logic', slug: 'marigold-logic', description: '', role: 'presenter', memberCount: 4 }),
+    })
+    const deletes = () => fetchMock.mock.calls.filter(([, init]) => init?.method === 'DELETE')
+    await button('Delete…').trigger('click')
+    expect(wrapper.text()).toContain('Delete this puzzle and all its outlines?')
+    expect(deletes()).toHaveLength(0)
+    await button('Delete for good').trigger('click')
+    await flushPromises()
+    expect(deletes().map(([url]) => String(url))).toEqual(['/api/channels/1/puzzles/42'])
+    await vi.waitFor(() => expect(router.currentRoute.value.name).toBe('library'))
+  })
+
   it('should ask once more before deleting a take, and send the delete only when confirmed', async () => {
     const summary = { id: 9, puzzleId: 42, name: 'Take 1', status: 'solved', stepCount: 61, totalMs: 754_000, version: 2, updatedAt: '2025-05-01T10:00:00.000Z' }
     const { wrapper, fetchMock } = await open('/channels/1/puzzles/42', {
