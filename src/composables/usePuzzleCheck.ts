@@ -77,7 +77,9 @@ export function usePuzzleCheck(options: PuzzleCheckOptions) {
   const status = computed(() => result.value.status)
   const problems = computed(() => result.value.problems)
   const statusText = computed(() => STATUS_TEXT[result.value.status])
-  const problemCells = computed(() => [...new Set(result.value.problems.flatMap((p) => p.cells))])
+  // Before anything is entered, "several solutions" is the expected state, not a problem to point at.
+  const nothingEntered = computed(() => Array.from(toValue(options.givens)).every((d) => !d) && toValue(options.thermometers).length === 0)
+  const problemCells = computed(() => (nothingEntered.value ? [] : [...new Set(result.value.problems.flatMap((p) => p.cells))]))
   /** Structural problems (duplicate givens, broken thermometers): such a puzzle can't be saved. */
   const isMalformed = computed(() => result.value.status === 'invalid')
   const isUnique = computed(() => result.value.status === 'unique')

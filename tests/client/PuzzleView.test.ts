@@ -84,12 +84,15 @@ describe('PuzzleView', { timeout: 20_000 }, () => {
       expect(wrapper.findAll('label').some((l) => l.text() === label)).toBe(true)
     }
     expect(wrapper.text()).toContain("only with its setter's permission")
+    // an empty grid has many solutions, but nothing is marked as a problem before anything is entered
+    expect(grid.findAll('[aria-label$=", problem"]')).toHaveLength(0)
 
     await grid.trigger('focus')
     await key('4')
     await settle()
     expect(wrapper.find('[role="status"]').text()).toContain('Several solutions')
     expect(wrapper.text()).toContain('The puzzle has more than one solution')
+    expect(grid.findAll('[aria-label$=", problem"]')).toHaveLength(2)
     expect(button('Find the path').attributes('disabled')).toBeDefined()
   })
 
