@@ -16,7 +16,8 @@ export function authRoutes(db: Db, config: Config, passport: JwtPassport): Route
     limit: config.auth.signInAttemptsPer15Min,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
-    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${String(req.body?.email ?? '').toLowerCase()}`,
+    // runs before validation, so the e-mail may be any JSON value
+    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${typeof req.body?.email === 'string' ? req.body.email.toLowerCase() : ''}`,
     handler: (_req, _res, next) =>
       next(new HttpError(429, 'too-many-attempts', 'Too many sign-in attempts. Please wait 15 minutes and try again.')),
   })

@@ -38,6 +38,7 @@ export async function makeOutline(db: Db, engine: Engine, channelId: number, puz
     names: input.names,
     link: puzzle.link || undefined,
   })
+  if ('refused' in document) throw new HttpError(422, 'no-path', document.refused)
   const name = input.name ?? `Take ${puzzle.outline_count + 1}`
   return toRecord(await insertOutline(db, puzzle.id, user.id, fieldsOf(name, document)))
 }

@@ -4,12 +4,12 @@ import { Piscina } from 'piscina'
 import type { Outline } from '../../shared/schemas/outline'
 import { HttpError } from '../errors'
 import type { AppLogger } from '../logger'
-import type { OutlineTask, PuzzleInput, PuzzleVerdict } from './engine-task'
+import type { NoOutline, OutlineTask, PuzzleInput, PuzzleVerdict } from './engine-task'
 
 /** What services need from the engine: the same calls as engine-task.ts, asynchronous. */
 export interface Engine {
   check(puzzle: PuzzleInput): Promise<PuzzleVerdict>
-  outline(task: OutlineTask): Promise<Outline>
+  outline(task: OutlineTask): Promise<Outline | NoOutline>
 }
 
 export interface EnginePool extends Engine {

@@ -40,12 +40,20 @@ export function check(puzzle: PuzzleInput): PuzzleVerdict {
   return { check: count === 0 ? 'no-solution' : 'multiple-solutions', problems: validatePuzzle(puzzle).map(toProblem), solution: null }
 }
 
+/** Why no outline could be made, said to the person who asked for one (errors don't cross the thread boundary typed). */
+export interface NoOutline {
+  refused: string
+}
+
 /** A solve path narrated as a timed outline; a path that gets stuck is still an outline (status 'stuck'). */
-export function outline(task: OutlineTask): Outline {
+export function outline(task: OutlineTask): Outline | NoOutline {
   const { puzzle, errors } = parsePuzzle(task.puzzle)
-  if (!puzzle) throw new Error(`The puzzle can't be solved: ${errors[0]?.message ?? 'it is malformed'}`)
+  if (!puzzle) return { refused: `The puzzle can't be solved: ${errors[0]?.message ?? 'it is malformed'}` }
   const result = solvePath(puzzle)
-  if (result.status === 'invalid') throw new Error(`The puzzle can't be solved: ${result.errors?.[0]?.message ?? 'the engine rejected it'}`)
+  if (result.status === 'invalid') return { refused: `The puzzle can't be solved: ${result.errors?.[0]?.message ?? 'the engine rejected it'}` }
+  if (result.steps.length === 0) {
+    return { refused: "Gridcue's engine can't find a first step in this puzzle: it needs a technique the engine doesn't know yet, so there is no path to script." }
+  }
   return buildOutline(puzzle, result, { pace: task.pace, names: task.names, link: task.link })
 }
 

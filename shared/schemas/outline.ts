@@ -90,6 +90,10 @@ export const PACE_MIN = 60
 export const PACE_MAX = 400
 const pace = z.number().min(PACE_MIN).max(PACE_MAX)
 
+const HOUR_MS = 3_600_000
+/** Longest target length or aligned time an outline takes. */
+export const DAY_MS = 24 * HOUR_MS
+
 export const outlineLineSchema = z.object({
   id: z.int().min(1),
   kind: z.enum(['intro', 'step', 'outro']),
@@ -101,10 +105,10 @@ export const outlineLineSchema = z.object({
   hidden: z.boolean(),
   /** which of the technique's phrasings the text was rendered with, so re-rendering keeps it */
   phrasing: z.int().min(0),
-  /** estimated duration, kept in step with text and pace by every edit */
-  estMs: z.int().min(0),
+  /** estimated duration, kept in step with text and pace by every edit; no spoken line runs an hour */
+  estMs: z.int().min(0).max(HOUR_MS, 'a line can be at most an hour long'),
   /** start time in the aligned recording */
-  alignedStartMs: z.int().min(0).optional(),
+  alignedStartMs: z.int().min(0).max(DAY_MS, 'an aligned time must be within 24 hours').optional(),
 })
 export type OutlineLine = z.infer<typeof outlineLineSchema>
 
@@ -124,7 +128,7 @@ export const outlineSchema = z
     link: z.union([z.url({ protocol: /^https?$/, message: 'link must be a web address (https://…)' }), z.literal('')]).optional(),
     pace,
     names: namingStyleSchema,
-    targetMs: z.int().min(1).optional(),
+    targetMs: z.int().min(1).max(DAY_MS, 'a target length must be under 24 hours').optional(),
     status: z.enum(['solved', 'stuck']),
     puzzle: z.object({
       givens: z.string().regex(/^[1-9.]{81}$/, 'givens must be 81 characters, 1-9 or "."'),

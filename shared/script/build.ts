@@ -2,7 +2,7 @@
  * buildOutline: one call from an engine result to a complete, timed, chaptered script.
  */
 import type { Cell, Puzzle, SolveResult, Step } from '../engine/types'
-import { namingStyleSchema, stepSchema, type NamingStyle, type Outline, type OutlineLine } from '../schemas/outline'
+import { DAY_MS, namingStyleSchema, stepSchema, type NamingStyle, type Outline, type OutlineLine } from '../schemas/outline'
 import { groupSteps } from './fold'
 import { choosePhrasing, familyOf, renderLine, type ScriptSource } from './narrate'
 import { autoChapters } from './chapters'
@@ -63,6 +63,7 @@ export function checkTarget(outline: Outline, targetMs: unknown): number {
   if (typeof targetMs !== 'number' || !Number.isFinite(targetMs) || targetMs <= 0) {
     throw new Error(`target length must be a positive number of milliseconds (got ${String(targetMs)})`)
   }
+  if (targetMs >= DAY_MS) throw new Error(`target length must be under 24 hours (got ${formatClock(targetMs)})`)
   const intro = outline.lines.find((l) => l.kind === 'intro')
   if (intro && targetMs < intro.estMs) {
     throw new Error(`target ${formatClock(targetMs)} is shorter than the intro (${formatClock(intro.estMs)})`)

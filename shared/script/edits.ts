@@ -2,7 +2,7 @@
  * Edit operations on an outline. Each returns a new outline and leaves its input untouched,
  * so the studio can keep old versions for undo. None of them touches the engine steps.
  */
-import { outlineEditSchema, type NamingStyle, type Outline, type OutlineEdit, type OutlineLine } from '../schemas/outline'
+import { DAY_MS, outlineEditSchema, type NamingStyle, type Outline, type OutlineEdit, type OutlineLine } from '../schemas/outline'
 import { checkTarget } from './build'
 import { choosePhrasing, familyOf, renderLine } from './narrate'
 import { stepBox } from './segments'
@@ -163,8 +163,8 @@ export function alignLine(outline: Outline, lineId: number, startMs: number | nu
     const { alignedStartMs: _dropped, ...rest } = line
     return replaceLines(outline, [rest])
   }
-  if (typeof startMs !== 'number' || !Number.isFinite(startMs) || startMs < 0) {
-    throw new Error(`line ${lineId}: a start time must be a number of milliseconds, 0 or more (got ${String(startMs)})`)
+  if (typeof startMs !== 'number' || !Number.isFinite(startMs) || startMs < 0 || startMs >= DAY_MS) {
+    throw new Error(`line ${lineId}: a start time must be a number of milliseconds from 0 to under 24 hours (got ${String(startMs)})`)
   }
   const ms = Math.round(startMs)
   const before = outline.lines.slice(0, idx).reverse().find((l) => l.alignedStartMs !== undefined)

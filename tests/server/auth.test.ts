@@ -50,6 +50,12 @@ describe('POST /api/auth/sign-in', () => {
     expect(res.body.details.map((d: { path: string }) => d.path)).toEqual(['body.email', 'body.password'])
   })
 
+  it('should answer 400, not 500, when the e-mail is not text', async () => {
+    const res = await request(app).post('/api/auth/sign-in').send({ email: { toString: 1 }, password: 'x' })
+    expect(res.status).toBe(400)
+    expect(res.body.details[0].path).toBe('body.email')
+  })
+
   it('should answer 400 for a body that is not JSON', async () => {
     const res = await request(app).post('/api/auth/sign-in').set('Content-Type', 'application/json').send('{"email": ')
     expect(res.status).toBe(400)

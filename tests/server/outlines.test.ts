@@ -8,6 +8,7 @@ import { outlineSchema, type Outline } from '../../shared/schemas/outline'
 import type { OutlineRecord, PuzzleRecord } from '../../shared/schemas/studio'
 import { buildOutline, editLineText, hideLine, timeline } from '../../shared/script/index'
 import { ACTORS, demoEmail, openApiSuite, type Actor, type ApiSuite } from '../helpers/api'
+import { oracleSolve } from '../helpers/sat-oracle'
 import { draftOf, fixture, otherChannelOfOwner, postPuzzle, send } from '../helpers/studio'
 
 let thermo: PuzzleRecord
@@ -94,6 +95,18 @@ describe('role matrix', () => {
 })
 
 describe('POST /api/channels/:channelId/puzzles/:puzzleId/outlines', () => {
+  it('should answer 422 with a plain reason when the engine finds no first step, and store nothing', async () => {
+    // from memory: a widely shared "hardest" classic sudoku; the logic-solver SAT oracle (npm) confirms it has one solution
+    const givens = '12.3....435....1....4........54..2..6...7.........8.9...31..5.......9.7.....6...8'
+    expect(oracleSolve(givens).count).toBe(1)
+    const hard = await postPuzzle(app, tokens.owner!, channelId, { title: 'Too hard for now', givens, thermometers: [] })
+    expect(hard.check).toBe('unique')
+    const res = await as('presenter').post(outlinesOf(hard.id), {})
+    expect(res.status).toBe(422)
+    expect(res.body).toMatchObject({ code: 'no-path', message: expect.stringMatching(/can't find a first step/) })
+    expect((await as('presenter').get(outlinesOf(hard.id))).body).toEqual([])
+  })
+
   it('should store the engine path as a timed outline of the puzzle, with credits from the puzzle', () => {
     expect(first).toMatchObject({ puzzleId: thermo.id, name: 'Take 1', status: 'solved', version: 1 })
     expect(outlineSchema.safeParse(first.outline).success).toBe(true)
@@ -187,6 +200,14 @@ describe('GET /api/channels/:channelId/puzzles/:puzzleId/outlines', () => {
 })
 
 describe('PATCH /api/channels/:channelId/outlines/:outlineId', () => {
+  it('should answer 400, not a database error, for a line estimate beyond an hour', async () => {
+    const copy = await copyOfFirst()
+    const lines = copy.outline.lines.map((l, i) => (i === 1 ? { ...l, estMs: 3_000_000_000 } : l))
+    const res = await as('editor').patch(outlinePath(copy.id), { version: copy.version, outline: { ...copy.outline, lines } })
+    expect(res.status).toBe(400)
+    expect(res.body.message).toBe('body.outline.lines.1.estMs: a line can be at most an hour long')
+  })
+
   it('should save edited lines and work out the total time again', async () => {
     const copy = await copyOfFirst()
     const edited = hideLine(retitled(copy.outline, 'A shorter line.'), copy.outline.lines[2].id)

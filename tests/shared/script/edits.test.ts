@@ -16,6 +16,7 @@ import {
   type Outline,
 } from '../../../shared/script/index'
 import { THERMO_A, hiddenSingle, nakedPair, nakedSingle, puzzle, rc, result, thermoLength } from './steps'
+import { outlineSchema } from '../../../shared/schemas/outline'
 
 function deepFreeze<T>(o: T): T {
   if (o && typeof o === 'object') {
@@ -119,6 +120,13 @@ describe('edit operations', () => {
     expect(setTarget(base, 600_000).targetMs).toBe(600_000)
     expect('targetMs' in setTarget(setTarget(base, 600_000), null)).toBe(false)
     expect(() => setTarget(base, 1)).toThrow(/shorter than the intro/)
+    expect(() => setTarget(base, 25 * 3_600_000)).toThrow('target length must be under 24 hours (got 25:00:00)')
+  })
+
+  test('every edit result still passes the outline schema, even at the limits', () => {
+    expect(() => applyEdit(base, { op: 'alignLine', lineId: base.lines[1].id, startMs: 3e9 })).toThrow(/from 0 to under 24 hours/)
+    const aligned = applyEdit(base, { op: 'alignLine', lineId: base.lines[1].id, startMs: 24 * 3_600_000 - 1 })
+    expect(outlineSchema.safeParse(aligned).success).toBe(true)
   })
 
   test('applyEdit(data) validates the operation and runs it', () => {
