@@ -27,11 +27,14 @@ fi
 stop() {
   [ -n "${SERVER_PID:-}" ] && kill "$SERVER_PID" 2>/dev/null && wait "$SERVER_PID" 2>/dev/null
   [ -n "$STARTED_CLUSTER" ] && { log "stopping PostgreSQL"; stop_cluster "$STARTED_CLUSTER"; }
-  exit 0
+  exit "${STATUS:-0}"
 }
 trap stop INT TERM
 export NODE_ENV=${NODE_ENV:-production}
 (cd "$ROOT" && exec node --import tsx server/index.ts) &
 SERVER_PID=$!
-wait "$SERVER_PID"
+# the server may also end on its own (a port in use): stop the database with it either way
+STATUS=0
+wait "$SERVER_PID" || STATUS=$?
+SERVER_PID=
 stop

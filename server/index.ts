@@ -17,14 +17,16 @@ const db = createDb(config.db.url)
 const engine = createEnginePool({ ...config.engine, logger })
 const app = createApp({ db, config, logger, engine })
 
-const server = app.listen(config.http.port, config.http.host, () => {
+// Express 5 hands a listen error to this callback as well
+const server = app.listen(config.http.port, config.http.host, (error?: Error) => {
+  if (error) {
+    const inUse = (error as NodeJS.ErrnoException).code === 'EADDRINUSE'
+    console.error(inUse ? `\n  Port ${config.http.port} is already in use: stop what uses it, or set PORT to another port.\n` : `\n  Gridcue could not start: ${error.message}\n`)
+    process.exit(1)
+  }
   const address = server.address()
   const port = typeof address === 'object' && address ? address.port : config.http.port
   console.log(`\n  Gridcue is running at http://${config.http.host}:${port}/\n`)
-})
-server.on('error', (error) => {
-  logger.fatal({ err: error }, 'could not start the server')
-  process.exit(1)
 })
 
 async function shutdown(signal: string) {

@@ -4,7 +4,9 @@
 set -euo pipefail
 
 ROOT=$(cd "$(dirname "${BASH_SOURCE[0]}")/../.." && pwd)
-PG_BIN=${PG_BIN:-/usr/lib/postgresql/15/bin}
+# the newest PostgreSQL Debian installed (15 on Debian 12, 17 on Debian 13); PG_BIN overrides
+newest_pg_bin() { ls -d /usr/lib/postgresql/*/bin 2>/dev/null | sort -V | tail -n 1; }
+PG_BIN=${PG_BIN:-$(newest_pg_bin)}
 DATA_ROOT="$ROOT/.data"
 mkdir -p "$DATA_ROOT"
 
@@ -29,8 +31,11 @@ apt_install() {
 }
 
 ensure_postgres_binaries() {
-  [ -x "$PG_BIN/initdb" ] || apt_install "PostgreSQL (initdb)" postgresql
-  [ -x "$PG_BIN/initdb" ] || die "PostgreSQL binaries not found in $PG_BIN (set PG_BIN)"
+  if [ ! -x "$PG_BIN/initdb" ]; then
+    apt_install "PostgreSQL (initdb)" postgresql
+    PG_BIN=$(newest_pg_bin)
+  fi
+  [ -x "$PG_BIN/initdb" ] || die "PostgreSQL binaries not found under /usr/lib/postgresql (set PG_BIN to the folder holding initdb)"
 }
 
 # Runs a PostgreSQL server tool as the user that owns the cluster (PostgreSQL refuses root).
