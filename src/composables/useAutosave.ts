@@ -65,6 +65,8 @@ export function useAutosave(options: AutosaveOptions) {
   let opened: Outline | null = null
   let timer: ReturnType<typeof setTimeout> | undefined
   let inFlight: Promise<void> | null = null
+  /** the screen is gone: a failed last save is not retried in the background */
+  let disposed = false
 
   const key = computed(() => localCopyKey(toValue(options.outlineId)))
   const label = computed(() => STATUS_LABELS[status.value])
@@ -143,7 +145,9 @@ export function useAutosave(options: AutosaveOptions) {
         status.value = 'saved'
         removeLocal()
       } else {
-        // Edited while the request was out: that newer snapshot still needs saving.
+        // Edited while the request was out: that newer snapshot still needs saving, and the local copy
+        // now builds on the version just saved (else a reload would mistake our own save for someone else's).
+        writeLocal(options.outline.value!)
         status.value = 'unsaved'
         schedule(delayMs)
       }
@@ -166,8 +170,14 @@ export function useAutosave(options: AutosaveOptions) {
     }
     status.value = 'unsaved'
     lastError.value = error instanceof Error ? error.message : 'The outline could not be saved.'
-    // A 401 ends the session elsewhere; anything else may pass, so try again while the copy waits locally.
-    if (!(isApiError(error) && error.status === 401)) schedule(retryMs)
+    // Only what may pass by itself is retried (no connection, too many requests, a server error); a refusal
+    // such as 403 or a deleted outline stays on screen with its message while the copy waits locally.
+    if (mayPass(error) && !disposed) schedule(retryMs)
+  }
+
+  function mayPass(error: unknown): boolean {
+    if (!isApiError(error)) return true
+    return error.status === 0 || error.status === 429 || error.status >= 500
   }
 
   function fetchCurrent(): Promise<OutlineRecord> {
@@ -183,7 +193,8 @@ export function useAutosave(options: AutosaveOptions) {
     version.value = c.theirs.version
     baseline.value = toRaw(c.theirs.outline)
     status.value = 'unsaved'
-    if (options.outline.value !== c.mine) options.replace(c.mine)
+    // the editor's document, not the snapshot from when the conflict arrived: a line may have committed since
+    if (!options.outline.value) options.replace(c.mine)
     await saveNow()
   }
 
@@ -250,6 +261,7 @@ export function useAutosave(options: AutosaveOptions) {
   }
   window.addEventListener('beforeunload', onBeforeUnload)
   onScopeDispose(() => {
+    disposed = true
     window.removeEventListener('beforeunload', onBeforeUnload)
     // Leaving the screen: send what's pending now rather than drop the timer (the local copy stays until it lands).
     if (status.value === 'unsaved') void saveNow()

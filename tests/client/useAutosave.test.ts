@@ -117,6 +117,48 @@ describe('useAutosave', () => {
     wrapper.unmount()
   })
 
+  it('should re-base the local copy on our own save when edits arrive while it is on its way', async () => {
+    let answer!: (r: Response) => void
+    const sent: { version: number; outline: Outline }[] = []
+    mockApi({
+      [`PATCH ${URL}`]: (_url, init) => {
+        sent.push(JSON.parse(String(init.body)))
+        return new Promise<Response>((resolve) => (answer = resolve))
+      },
+    })
+    const { editor, wrapper } = mountAutosave(recordFor(doc, { version: 3 }))
+    editor.apply({ op: 'hideLine', lineId: doc.lines[3].id })
+    await vi.advanceTimersByTimeAsync(1000)
+    editor.apply({ op: 'hideLine', lineId: doc.lines[4].id })
+    await flushPromises()
+    answer(jsonResponse(200, recordFor(sent[0].outline, { version: 4 })))
+    await flushPromises()
+    // a reload now must not take version 4 (our own save) for someone else's
+    expect(localCopy()).toMatchObject({ baseVersion: 4 })
+    expect(localCopy()!.outline.lines[4].hidden).toBe(true)
+    wrapper.unmount()
+  })
+
+  it('should retry a server error but not a refusal such as a deleted outline', async () => {
+    let answers = [jsonResponse(503, { code: 'engine-busy', message: 'Busy' }), jsonResponse(404, { code: 'not-found', message: 'Outline not found' })]
+    const fetchMock = mockApi({ [`PATCH ${URL}`]: () => answers.shift()! })
+    const { editor, status, wrapper } = mountAutosave(recordFor(doc, { version: 3 }))
+    editor.apply({ op: 'hideLine', lineId: doc.lines[3].id })
+    await vi.advanceTimersByTimeAsync(1000)
+    await flushPromises()
+    expect(fetchMock).toHaveBeenCalledTimes(1)
+    await vi.advanceTimersByTimeAsync(10_000)
+    await flushPromises()
+    expect(fetchMock).toHaveBeenCalledTimes(2)
+    expect(status()).toBe('Unsaved changes')
+    answers = []
+    await vi.advanceTimersByTimeAsync(60_000)
+    await flushPromises()
+    expect(fetchMock).toHaveBeenCalledTimes(2)
+    expect(localCopy()!.outline.lines[3].hidden).toBe(true)
+    wrapper.unmount()
+  })
+
   it('should keep a local copy until the server has the outline, showing "Saving…" meanwhile', async () => {
     let answer!: (r: Response) => void
     const sent: { version: number; outline: Outline }[] = []
