@@ -132,6 +132,25 @@ describe('ScriptEditor with useOutlineEditor', () => {
     wrapper.unmount()
   })
 
+  it('should hand words still waiting to be committed to the outline when the page is being left', async () => {
+    const { wrapper, editor } = mountEditor(doc)
+    const line = doc.lines[3]
+    const area = lineEl(wrapper, line.id).find('textarea')
+    await area.setValue('Typed just before the reload.')
+    expect(editor().outline.value!.lines[3].text).toBe(line.text)
+
+    const leaving = new Event('beforeunload', { cancelable: true })
+    window.dispatchEvent(leaving)
+    expect(leaving.defaultPrevented).toBe(true)
+    expect(editor().outline.value!.lines[3].text).toBe('Typed just before the reload.')
+
+    // once committed, leaving the page is not held up by this line again
+    const again = new Event('beforeunload', { cancelable: true })
+    window.dispatchEvent(again)
+    expect(again.defaultPrevented).toBe(false)
+    wrapper.unmount()
+  })
+
   it('should refuse an empty line and put the words back when leaving it', async () => {
     const { wrapper, editor } = mountEditor(doc)
     const line = doc.lines[2]
