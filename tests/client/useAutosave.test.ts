@@ -75,6 +75,19 @@ function acceptSaves(startVersion = 3) {
   return { sent, fetchMock }
 }
 
+/** PATCH requests wait until the test answers the latest one; the bodies sent are kept. */
+function holdSaves() {
+  const sent: { version: number; outline: Outline }[] = []
+  let resolveLatest!: (r: Response) => void
+  mockApi({
+    [`PATCH ${URL}`]: (_url, init) => {
+      sent.push(JSON.parse(String(init.body)))
+      return new Promise<Response>((resolve) => (resolveLatest = resolve))
+    },
+  })
+  return { sent, answer: (response: Response) => resolveLatest(response) }
+}
+
 describe('useAutosave', () => {
   let doc: Outline
   beforeEach(() => {
@@ -118,14 +131,7 @@ describe('useAutosave', () => {
   })
 
   it('should re-base the local copy on our own save when edits arrive while it is on its way', async () => {
-    let answer!: (r: Response) => void
-    const sent: { version: number; outline: Outline }[] = []
-    mockApi({
-      [`PATCH ${URL}`]: (_url, init) => {
-        sent.push(JSON.parse(String(init.body)))
-        return new Promise<Response>((resolve) => (answer = resolve))
-      },
-    })
+    const { sent, answer } = holdSaves()
     const { editor, wrapper } = mountAutosave(recordFor(doc, { version: 3 }))
     editor.apply({ op: 'hideLine', lineId: doc.lines[3].id })
     await vi.advanceTimersByTimeAsync(1000)
@@ -160,14 +166,7 @@ describe('useAutosave', () => {
   })
 
   it('should keep a local copy until the server has the outline, showing "Saving…" meanwhile', async () => {
-    let answer!: (r: Response) => void
-    const sent: { version: number; outline: Outline }[] = []
-    mockApi({
-      [`PATCH ${URL}`]: (_url, init) => {
-        sent.push(JSON.parse(String(init.body)))
-        return new Promise<Response>((resolve) => (answer = resolve))
-      },
-    })
+    const { sent, answer } = holdSaves()
     const { editor, status, wrapper } = mountAutosave(recordFor(doc, { version: 3 }))
     editor.apply({ op: 'renameChapter', lineId: doc.chapters[0].lineId, title: 'How it works' })
     await flushPromises()
