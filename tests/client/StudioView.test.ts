@@ -43,6 +43,26 @@ describe('StudioView', { timeout: 20_000 }, () => {
     wrapper.unmount()
   })
 
+  it('should open the other outline when the address moves from one studio to another', async () => {
+    const first = outlineFor('PE01')
+    const second = outlineFor('PE02')
+    saveSession()
+    mockApi({
+      'GET /api/auth/me': jsonResponse(200, { user: sessionFixture().user, memberships: [membership(12, 'presenter')] }),
+      'GET /api/channels/12/outlines/31': jsonResponse(200, recordFor(first)),
+      'GET /api/channels/12/outlines/32': jsonResponse(200, recordFor(second, { id: 32, name: 'Second take' })),
+    })
+    const { wrapper, router } = await mountAt(App, PATH)
+    await flushPromises()
+    const firstIntro = (wrapper.find('article.line textarea').element as HTMLTextAreaElement).value
+    await router.push('/channels/12/outlines/32')
+    await flushPromises()
+    await vi.waitFor(() => expect(wrapper.text()).toContain('Second take'))
+    expect((wrapper.find('article.line textarea').element as HTMLTextAreaElement).value).toBe(second.lines[0].text)
+    expect(second.lines[0].text).not.toBe(firstIntro)
+    wrapper.unmount()
+  })
+
   it('should jump to a line’s first step when its ribbon block is clicked', async () => {
     const doc = outlineFor('PE01')
     serve(doc)
