@@ -53,7 +53,6 @@ export function useReplay(outline: MaybeRefOrGetter<Outline | null>, step: Maybe
       eliminated: s?.eliminations ?? [],
       placed: s?.placements.map((pl) => pl.cell) ?? [],
       chain: s?.facts.kind === 'contradiction' ? [s.facts.cell, ...s.facts.chain.map((link) => link.cell)] : [],
-      emptyCount: atStop ? empty.length : null,
     }
   })
 
