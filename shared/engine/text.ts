@@ -1,5 +1,5 @@
 /** One-line plain descriptions of steps, in Gridcue's own wording; the narration lives in shared/script. */
-import { cellName, houseName } from './geometry'
+import { cellName, houseName } from '../grid/geometry'
 import type { Cell, ChainLink, Digit, Elimination, Step } from './types'
 
 /** A one-line description of a step. */

@@ -1,5 +1,5 @@
 /** Last candidate in a cell (naked single): every other digit is ruled out. */
-import { CELL_HOUSES, HOUSES, POPCOUNT, digitsOf, houseRef, lowestDigit } from '../geometry'
+import { CELL_HOUSES, HOUSES, POPCOUNT, digitsOf, houseRef, lowestDigit } from '../../grid/geometry'
 import type { Board } from '../board'
 import type { Cell, HouseRef } from '../types'
 import { Picker, type Deduction, type Technique } from './deduction'

@@ -2,7 +2,7 @@
  * Grid geometry: houses, peers and cell naming, computed once at load.
  * Cells are 0..80 row-major; houses 0..8 are rows, 9..17 columns, 18..26 boxes.
  */
-import type { Cell, HouseKind, HouseRef } from './types'
+import type { Cell, HouseKind, HouseRef } from '../engine/types'
 
 /** All digits as a 9-bit mask (bit d − 1 for digit d). */
 export const ALL_DIGITS = 0x1ff
