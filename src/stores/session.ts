@@ -4,27 +4,7 @@ import { signInResponseSchema } from '@shared/schemas/auth'
 import type { Membership, Role, SignInInput, SignInResponse, User } from '@shared/schemas/auth'
 import { getMe, signIn as postSignIn } from '@/api/auth'
 import { setHttpAuth } from '@/api/http'
-
-export type Action =
-  | 'read-published'
-  | 'read-puzzles'
-  | 'read-members'
-  | 'edit-puzzles'
-  | 'edit-outlines'
-  | 'edit-recordings'
-  | 'edit-episodes'
-  | 'manage-members'
-  | 'manage-channel'
-
-const ROLE_ACTIONS: Record<Role, readonly Action[]> = {
-  owner: [
-    'read-published', 'read-puzzles', 'read-members', 'edit-puzzles', 'edit-outlines',
-    'edit-recordings', 'edit-episodes', 'manage-members', 'manage-channel',
-  ],
-  presenter: ['read-published', 'read-puzzles', 'read-members', 'edit-puzzles', 'edit-outlines'],
-  editor: ['read-published', 'read-puzzles', 'read-members', 'edit-recordings', 'edit-episodes'],
-  viewer: ['read-published'],
-}
+import { roleCan, type Action } from '@shared/permissions'
 
 export const SESSION_STORAGE_KEY = 'gridcue.session'
 
@@ -122,8 +102,7 @@ export const useSessionStore = defineStore('session', () => {
   }
 
   function can(channelId: number, action: Action): boolean {
-    const role = roleIn(channelId)
-    return role !== null && ROLE_ACTIONS[role].includes(action)
+    return roleCan(roleIn(channelId), action)
   }
 
   function persist(): void {
