@@ -1,5 +1,6 @@
-import { computed, onScopeDispose, shallowRef, toValue, watch } from 'vue'
+import { computed, shallowRef, toValue, watch } from 'vue'
 import type { MaybeRefOrGetter } from 'vue'
+import { useTimeoutFn } from '@vueuse/core'
 import { validatePuzzle } from '@shared/engine'
 import type { ValidationError } from '@shared/engine'
 import type { PuzzleCheck } from '@shared/schemas/studio'
@@ -48,8 +49,7 @@ export function usePuzzleCheck(options: PuzzleCheckOptions) {
   let checkedGivens: ArrayLike<number> | undefined
   let checkedThermometers: number[][] | undefined
   const result = shallowRef<PuzzleCheckResult>(run())
-  const pending = shallowRef(false)
-  let timer: ReturnType<typeof setTimeout> | undefined
+  const { isPending: pending, start, stop } = useTimeoutFn(flush, delay, { immediate: false })
 
   function run(): PuzzleCheckResult {
     checkedGivens = toValue(options.givens)
@@ -59,20 +59,15 @@ export function usePuzzleCheck(options: PuzzleCheckOptions) {
 
   /** Checks now (e.g. right before saving), cancelling a waiting check. */
   function flush(): PuzzleCheckResult {
-    clearTimeout(timer)
-    pending.value = false
+    stop()
     result.value = run()
     return result.value
   }
 
   watch([() => toValue(options.givens), () => toValue(options.thermometers)], ([givens, thermometers]) => {
     if (givens === checkedGivens && thermometers === checkedThermometers) return
-    clearTimeout(timer)
-    pending.value = true
-    timer = setTimeout(flush, delay)
+    start()
   })
-
-  onScopeDispose(() => clearTimeout(timer))
 
   const status = computed(() => result.value.status)
   const problems = computed(() => result.value.problems)
