@@ -1,6 +1,7 @@
 import { createRouter } from 'vue-router'
 import type { RouteLocationNormalized, RouteLocationRaw, RouteRecordRaw, RouterHistory } from 'vue-router'
-import type { Role } from '@shared/schemas/auth'
+import { roleCan } from '@shared/permissions'
+import type { Action } from '@shared/permissions'
 import { useSessionStore } from '@/stores/session'
 import SignInView from '@/views/SignInView.vue'
 
@@ -8,8 +9,11 @@ declare module 'vue-router' {
   interface RouteMeta {
     /** Only for signed-in users; others are sent to sign in and brought back. */
     requiresAuth?: boolean
-    /** Roles allowed in the route's `:channelId` channel (or, without that param, in any channel). */
-    roles?: Role[]
+    /**
+     * What a member must be allowed to do (per the shared permission table) in the route's `:channelId` channel,
+     * or, for a route without that param, in at least one of their channels.
+     */
+    access?: Action
     /** A workspace screen: uses the whole window width (and, on a large screen, its height) instead of the reading column. */
     wide?: boolean
   }
@@ -20,8 +24,6 @@ export type RouteName = 'sign-in' | 'home' | 'library' | 'channel-members' | 'pu
 /** Why the guard sent someone to the home page instead of where they asked to go. */
 export type HomeNotice = 'forbidden' | 'access-unchecked'
 
-const anyMember: Role[] = ['owner', 'presenter', 'editor', 'viewer']
-
 export const routes: RouteRecordRaw[] = [
   { path: '/sign-in', name: 'sign-in', component: SignInView },
   { path: '/', name: 'home', component: () => import('@/views/HomeView.vue'), meta: { requiresAuth: true } },
@@ -30,14 +32,14 @@ export const routes: RouteRecordRaw[] = [
     name: 'library',
     component: () => import('@/views/LibraryView.vue'),
     props: (route) => ({ channelId: Number(route.params.channelId) }),
-    meta: { requiresAuth: true, roles: anyMember },
+    meta: { requiresAuth: true, access: 'channel.read' },
   },
   {
     path: '/channels/:channelId(\\d+)/members',
     name: 'channel-members',
     component: () => import('@/views/ChannelView.vue'),
     props: (route) => ({ channelId: Number(route.params.channelId) }),
-    meta: { requiresAuth: true, roles: anyMember },
+    meta: { requiresAuth: true, access: 'channel.read' },
   },
   {
     path: '/channels/:channelId(\\d+)/puzzles/:puzzleId(\\d+|new)',
@@ -47,19 +49,19 @@ export const routes: RouteRecordRaw[] = [
       channelId: Number(route.params.channelId),
       puzzleId: route.params.puzzleId === 'new' ? 'new' : Number(route.params.puzzleId),
     }),
-    meta: { requiresAuth: true, roles: ['owner', 'presenter', 'editor'] },
+    meta: { requiresAuth: true, access: 'puzzle.read' },
   },
   {
     path: '/channels/:channelId(\\d+)/outlines/:outlineId(\\d+)',
     name: 'studio',
     component: () => import('@/views/StudioView.vue'),
     props: (route) => ({ channelId: Number(route.params.channelId), outlineId: Number(route.params.outlineId) }),
-    meta: { requiresAuth: true, roles: ['owner', 'presenter', 'editor'], wide: true },
+    meta: { requiresAuth: true, access: 'outline.read', wide: true },
   },
   { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/views/NotFoundView.vue') },
 ]
 
-/** The one navigation guard: sign-in first, then the route's roles. */
+/** The one navigation guard: sign-in first, then the route's `access` action. */
 export async function sessionGuard(to: RouteLocationNormalized): Promise<true | RouteLocationRaw> {
   const session = useSessionStore()
   const signedIn = session.checkExpiry()
@@ -68,8 +70,8 @@ export async function sessionGuard(to: RouteLocationNormalized): Promise<true | 
   if (!to.meta.requiresAuth) return true
   if (!signedIn) return { name: 'sign-in', query: { redirect: to.fullPath } }
 
-  const roles = to.meta.roles
-  if (!roles) return true
+  const action = to.meta.access
+  if (!action) return true
   let memberships
   try {
     memberships = await session.loadMemberships()
@@ -79,8 +81,8 @@ export async function sessionGuard(to: RouteLocationNormalized): Promise<true | 
   }
   const channelId = Number(to.params.channelId)
   const allowed = Number.isInteger(channelId)
-    ? memberships.some((m) => m.channelId === channelId && roles.includes(m.role))
-    : memberships.some((m) => roles.includes(m.role))
+    ? memberships.some((m) => m.channelId === channelId && roleCan(m.role, action))
+    : memberships.some((m) => roleCan(m.role, action))
   return allowed || homeWith('forbidden')
 }
 
