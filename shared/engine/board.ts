@@ -3,7 +3,7 @@
  * thermometers. A placed cell keeps its own digit as its only candidate, so thermometer
  * bounds read placed and open cells the same way.
  */
-import { ALL_DIGITS, HOUSES, PEERS } from '../grid/geometry'
+import { ALL_DIGITS, HOUSES, PEERS } from '../grid'
 import type { Cell, Digit, Puzzle } from './types'
 
 export class Board {

@@ -3,7 +3,7 @@
  * then depth-first search on the cell with the fewest candidates. Used for validation only;
  * it proves nothing a presenter could say aloud.
  */
-import { ALL_DIGITS, HOUSES, PEERS, POPCOUNT, digitsAbove, digitsBelow, highestDigit, lowestDigit } from '../grid/geometry'
+import { ALL_DIGITS, HOUSES, PEERS, POPCOUNT, digitsAbove, digitsBelow, highestDigit, lowestDigit } from '../grid'
 import type { Cell } from './types'
 
 /** Up to `limit` solutions of a grid (givens 0 = empty) with thermometers, each as 81 digits. */

@@ -15,7 +15,7 @@ export type {
   TechniqueId,
   ValidationError,
 } from './types'
-export { cellName, parseCellName, houseName, gridString } from '../grid/geometry'
+export { cellName, parseCellName, houseName, gridString } from '../grid'
 export { TECHNIQUES, type TechniqueInfo } from './techniques/catalog'
 export { parsePuzzle } from './parse'
 export { validatePuzzle, countSolutions } from './validate'

@@ -3,7 +3,7 @@
  * givens string. Each problem becomes a ValidationError naming the cells involved.
  */
 import { puzzleFileShape } from '../schemas/puzzle'
-import { HOUSES, cellName, houseName, houseRef, kingAdjacent, parseCellName } from '../grid/geometry'
+import { HOUSES, cellName, houseName, houseRef, kingAdjacent, parseCellName } from '../grid'
 import type { Cell, Puzzle, ValidationError } from './types'
 
 const UNTITLED = 'Untitled puzzle'

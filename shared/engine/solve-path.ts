@@ -3,7 +3,7 @@
  * equally easy ones the deduction nearest the previous step, since a presenter stays in one area.
  */
 import { Board } from './board'
-import { gridString } from '../grid/geometry'
+import { gridString } from '../grid'
 import { parsePuzzle } from './parse'
 import { TIERS } from './techniques/index'
 import type { Deduction } from './techniques/deduction'

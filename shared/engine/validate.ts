@@ -1,6 +1,6 @@
 /** Full validation: structure, then existence and uniqueness of the solution. */
 import { findSolutions } from './exact-solver'
-import { cellName, gridString } from '../grid/geometry'
+import { cellName, gridString } from '../grid'
 import { parsePuzzle } from './parse'
 import type { Puzzle, ValidationError } from './types'
 

@@ -2,7 +2,7 @@
  * Grid geometry: houses, peers and cell naming, computed once at load.
  * Cells are 0..80 row-major; houses 0..8 are rows, 9..17 columns, 18..26 boxes.
  */
-import type { Cell, HouseKind, HouseRef } from '../engine/types'
+import type { Cell, HouseKind, HouseRef } from '../schemas/step'
 
 /** All digits as a 9-bit mask (bit d − 1 for digit d). */
 export const ALL_DIGITS = 0x1ff
@@ -32,6 +32,12 @@ export function houseIndex(h: HouseRef): number {
 export function houseRef(index: number): HouseRef {
   const kind: HouseKind = index < 9 ? 'row' : index < 18 ? 'column' : 'box'
   return { kind, index: index % 9 }
+}
+
+/** The nine cells of a house, in reading order (left to right, then top to bottom). */
+export function houseCells(h: HouseRef): Cell[] {
+  if (!Number.isInteger(h.index) || h.index < 0 || h.index > 8) throw new Error(`houseCells: ${h.kind} index ${h.index} is not 0..8`)
+  return Array.from(HOUSES[houseIndex(h)])
 }
 
 /** "r1c1" style name of a cell, rows and columns counted from 1. */

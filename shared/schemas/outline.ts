@@ -1,86 +1,13 @@
 /**
  * Wire contract of a timed outline (the script, its timing inputs and chapters) and of the
- * edit operations the studio sends. Client, server and shared/script use these one copies.
+ * edit operations the studio sends. Client, server and shared/script use these one copies;
+ * the steps inside an outline follow the step contract in ./step.
  */
 import { z } from 'zod'
-import type { Step } from '../engine/types'
+import { cellSchema, stepSchema } from './step'
 
-const cell = z.int().min(0).max(80)
-const digit = z.int().min(1).max(9)
-const houseRef = z.object({ kind: z.enum(['row', 'column', 'box']), index: z.int().min(0).max(8) })
-const techniqueId = z.enum([
-  'naked-single',
-  'hidden-single',
-  'naked-pair',
-  'naked-triple',
-  'hidden-pair',
-  'hidden-triple',
-  'locked-box-line',
-  'locked-line-box',
-  'thermo-length',
-  'thermo-bounds',
-  'contradiction',
-])
-const range = z.object({ cell, min: digit, max: digit })
-
-const factsSchema = z.discriminatedUnion('kind', [
-  z.object({
-    kind: z.literal('single-cell'),
-    cell,
-    digit,
-    seen: z.object({ row: z.array(digit), column: z.array(digit), box: z.array(digit), thermometer: z.array(digit) }),
-  }),
-  z.object({ kind: z.literal('single-house'), cell, digit, house: houseRef, blockedCells: z.array(cell) }),
-  z.object({ kind: z.literal('subset'), form: z.enum(['naked', 'hidden']), house: houseRef, cells: z.array(cell), digits: z.array(digit) }),
-  z.object({
-    kind: z.literal('locked'),
-    digit,
-    box: z.int().min(0).max(8),
-    line: houseRef,
-    direction: z.enum(['box-to-line', 'line-to-box']),
-    cells: z.array(cell),
-  }),
-  z.object({ kind: z.literal('thermo-length'), thermometer: z.int().min(0), length: z.int().min(2).max(9), ranges: z.array(range) }),
-  z.object({
-    kind: z.literal('thermo-bounds'),
-    thermometer: z.int().min(0),
-    direction: z.enum(['min', 'max']),
-    fromCell: cell,
-    fromDigit: digit,
-    ranges: z.array(range),
-    withSudoku: z.boolean(),
-  }),
-  z.object({
-    kind: z.literal('contradiction'),
-    cell,
-    assumed: digit,
-    chain: z.array(
-      z.object({
-        technique: techniqueId,
-        kind: z.enum(['place', 'eliminate']),
-        cell,
-        digits: z.array(digit),
-        house: houseRef.optional(),
-        thermometer: z.int().min(0).optional(),
-      }),
-    ),
-    emptyCell: cell.optional(),
-    emptyHouse: z.object({ house: houseRef, digit }).optional(),
-  }),
-])
-
-/** An engine step as stored inside an outline; unknown extra fields are kept (the engine may add some). */
-export const stepSchema: z.ZodType<Step> = z.looseObject({
-  technique: techniqueId,
-  placements: z.array(z.object({ cell, digit })),
-  eliminations: z.array(z.object({ cell, digits: z.array(digit) })),
-  focus: z.array(cell),
-  reason: z.object({ houses: z.array(houseRef), thermometers: z.array(z.int().min(0)), cells: z.array(cell) }),
-  facts: factsSchema,
-  difficulty: z.number(),
-  marks: z.array(cell),
-  text: z.string(),
-})
+/** Offered here too: whoever checks outlines finds the check of the steps they hold beside it. */
+export { stepSchema }
 
 export const namingStyleSchema = z.enum(['words', 'coords'])
 export type NamingStyle = z.infer<typeof namingStyleSchema>
@@ -132,7 +59,7 @@ export const outlineSchema = z
     status: z.enum(['solved', 'stuck']),
     puzzle: z.object({
       givens: z.string().regex(/^[1-9.]{81}$/, 'givens must be 81 characters, 1-9 or "."'),
-      thermometers: z.array(z.array(cell).min(2).max(9)),
+      thermometers: z.array(z.array(cellSchema).min(2).max(9)),
     }),
     steps: z.array(stepSchema).min(1),
     lines: z.array(outlineLineSchema).min(1),

@@ -1,14 +1,16 @@
 /**
  * buildOutline: one call from an engine result to a complete, timed, chaptered script.
  */
-import type { Cell, Puzzle, SolveResult, Step } from '../engine/types'
-import { DAY_MS, namingStyleSchema, stepSchema, type NamingStyle, type Outline, type OutlineLine } from '../schemas/outline'
+import type { Puzzle, SolveResult, Step } from '../engine/types'
+import { PEERS } from '../grid'
+import { DAY_MS, namingStyleSchema, type NamingStyle, type Outline, type OutlineLine } from '../schemas/outline'
+import { stepSchema } from '../schemas/step'
 import { groupSteps } from './fold'
 import { choosePhrasing, familyOf, renderLine, type ScriptSource } from './narrate'
 import { autoChapters } from './chapters'
 import { formatClock } from './timecode'
 import { checkPace, estimateMs, lineActions, TIMING } from './timing'
-import { boxOf, cellWords, colOf, rowOf } from './words'
+import { cellWords } from './words'
 
 export interface BuildOptions {
   /** words a minute, 60–400; default 160 */
@@ -126,20 +128,12 @@ function checkResult(result: SolveResult, puzzle: Puzzle, givens: string): Step[
     for (const p of step.placements) {
       const at = cellWords(p.cell, coords)
       if (grid[p.cell] !== 0) throw fail(`it places ${p.digit} at ${at}, which already holds ${grid[p.cell]}`)
-      const clash = peersOf(p.cell).find((c) => grid[c] === p.digit)
+      const clash = PEERS[p.cell].find((c) => grid[c] === p.digit)
       if (clash !== undefined) throw fail(`it places ${p.digit} at ${at}, and ${cellWords(clash, coords)} already holds ${p.digit}`)
       grid[p.cell] = p.digit
     }
     return step
   })
-}
-
-function peersOf(cell: Cell): Cell[] {
-  const out: Cell[] = []
-  for (let c = 0; c < 81; c++) {
-    if (c !== cell && (rowOf(c) === rowOf(cell) || colOf(c) === colOf(cell) || boxOf(c) === boxOf(cell))) out.push(c)
-  }
-  return out
 }
 
 /** JSON has no undefined: drop optional keys that aren't set, so outlines compare equal after a round trip. */

@@ -2,8 +2,9 @@
  * Rows of the printable cue sheet: what the presenter holds while recording.
  */
 import type { Cell } from '../engine/types'
+import { gridString } from '../grid'
 import type { Outline } from '../schemas/outline'
-import { digitsAfter, gridString } from './grid'
+import { digitsAfter } from './replay-digits'
 import { formatClock } from './timecode'
 import { timeline } from './timing'
 

@@ -4,8 +4,8 @@
  * so replay stays exact.
  */
 import type { Cell, Step } from '../engine/types'
+import { boxOf, colOf, rowOf } from '../grid'
 import { segmentSteps, TRIVIAL } from './segments'
-import { boxOf, colOf, rowOf } from './words'
 
 /** Longer runs than this stop sounding like "a few quick ones". */
 export const MAX_RUN = 6

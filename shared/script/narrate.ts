@@ -3,9 +3,10 @@
  * the phrasing a new line gets. Text depends only on the steps' structured facts, the stored
  * phrasing index and the naming style, so re-rendering is exact.
  */
-import type { Cell, Step } from '../engine/types'
+import { byFactsKind, type FactsTable } from '../engine/facts-table'
+import type { Cell, FactsKind, FactsOf, Step } from '../engine/types'
+import { boxOf, colOf, houseCells, rowOf } from '../grid'
 import type { Outline, OutlineLine } from '../schemas/outline'
-import { digitsAfter } from './grid'
 import { INTRO, OUTRO, type Credits } from './intro'
 import { hashNumbers, hashString, openerOf, rotation } from './pick'
 import {
@@ -23,16 +24,17 @@ import {
   THERMO_LENGTH,
   eliminationsWords,
   placementsWords,
+  type Phrasing,
   type Run,
   type Said,
 } from './phrasings'
+import { digitsAfter } from './replay-digits'
 import { segmentSteps, TRIVIAL } from './segments'
-import { boxOf, colOf, houseWords, rowOf, thermoWords, type Namer } from './words'
+import { houseWords, thermoWords, type Namer } from './words'
 
 /** The parts of an outline that text is rendered from. */
 export type ScriptSource = Pick<Outline, 'title' | 'author' | 'link' | 'names' | 'status' | 'puzzle' | 'steps'>
 type LineShape = Pick<OutlineLine, 'kind' | 'steps'>
-
 
 /** The text of a line with the given phrasing. */
 export function renderLine(src: ScriptSource, line: LineShape, phrasing: number, style = src.names): string {
@@ -64,7 +66,7 @@ function renderSteps(src: ScriptSource, line: LineShape, phrasing: number, n: Na
 export function phrasingCount(src: ScriptSource, line: LineShape): number {
   if (line.kind === 'intro') return INTRO.length
   if (line.kind === 'outro') return OUTRO.length
-  if (line.steps.length === 1) return familyPhrasings(src.steps[line.steps[0]]).length
+  if (line.steps.length === 1) return narrationOf(src.steps[line.steps[0]]).phrasings().length
   if (line.steps.every((i) => TRIVIAL.has(src.steps[i].technique))) {
     return usableRuns(runOf(src, line.steps, { style: 'words', thermometers: src.puzzle.thermometers })).length
   }
@@ -75,7 +77,7 @@ export function phrasingCount(src: ScriptSource, line: LineShape): number {
 export function familyOf(src: ScriptSource, line: LineShape): string {
   if (line.kind !== 'step') return line.kind
   if (line.steps.length > 1) return 'run'
-  return familyKey(src.steps[line.steps[0]])
+  return narrationOf(src.steps[line.steps[0]]).family
 }
 
 /**
@@ -111,40 +113,15 @@ export function choosePhrasing(
 
 function renderStep(src: ScriptSource, index: number, phrasing: number, n: Namer): string {
   const step = src.steps[index]
-  const said: Said = { n, step }
-  const f = step.facts
+  const told = narrationOf(step)
   const parts: string[] = []
-  const explain = firstOfFamily(src.steps, index) ? explanation(step) : null
-  if (explain) parts.push(explain)
-  switch (f.kind) {
-    case 'single-cell':
-      parts.push(pickOf(SINGLE_CELL, phrasing)(f, said))
-      break
-    case 'single-house':
-      parts.push(pickOf(SINGLE_HOUSE, phrasing)(f, said))
-      break
-    case 'subset':
-      parts.push(pickOf(f.form === 'naked' ? NAKED_SUBSET : HIDDEN_SUBSET, phrasing)(f, said))
-      break
-    case 'locked':
-      parts.push(pickOf(f.direction === 'box-to-line' ? LOCKED_BOX_LINE : LOCKED_LINE_BOX, phrasing)(f, said))
-      break
-    case 'thermo-length':
-      parts.push(pickOf(THERMO_LENGTH, phrasing)(f, said))
-      break
-    case 'thermo-bounds':
-      parts.push(pickOf(THERMO_BOUNDS, phrasing)(f, said))
-      break
-    case 'contradiction':
-      parts.push(pickOf(CONTRADICTION, phrasing)(f, said))
-      break
-  }
-  // Subsets and locked candidates only matter through what they remove: say it.
-  if (f.kind === 'subset' || f.kind === 'locked') {
+  if (told.explain && firstWithIdea(src.steps, index, told.explain.idea)) parts.push(told.explain.words())
+  parts.push(pickOf(told.phrasings(), phrasing)({ n, step }))
+  if (told.sayAlso.eliminations) {
     const elim = eliminationsWords(step, n)
     if (elim) parts.push(elim)
   }
-  if (f.kind !== 'single-cell' && f.kind !== 'single-house' && step.placements.length > 0) {
+  if (told.sayAlso.placements && step.placements.length > 0) {
     parts.push(`That gives us ${placementsWords(step.placements, n)}.`)
   }
   return withBreakIn(src, [index], parts.join(' '), phrasing)
@@ -156,56 +133,71 @@ function withBreakIn(src: ScriptSource, steps: number[], text: string, phrasing:
   return `${text} ${pickOf(BREAK_IN, phrasing + first)}`
 }
 
-function explanation(step: Step): string | null {
-  const f = step.facts
-  switch (f.kind) {
-    case 'subset':
-      return f.form === 'naked' ? EXPLAIN['subset-naked'](f.cells.length) : EXPLAIN['subset-hidden'](f.cells.length)
-    case 'locked':
-      return EXPLAIN.locked()
-    case 'thermo-length':
-      return EXPLAIN['thermo-length']()
-    case 'thermo-bounds':
-      return EXPLAIN['thermo-bounds']()
-    case 'contradiction':
-      return EXPLAIN.contradiction()
-    default:
-      return null
-  }
-}
-
-function familyKey(step: Step): string {
-  const f = step.facts
-  if (f.kind === 'subset') return `subset-${f.form}`
-  if (f.kind === 'locked') return `locked-${f.direction}`
-  return f.kind
-}
-
-function familyPhrasings(step: Step): unknown[] {
-  const f = step.facts
-  switch (f.kind) {
-    case 'single-cell':
-      return SINGLE_CELL
-    case 'single-house':
-      return SINGLE_HOUSE
-    case 'subset':
-      return f.form === 'naked' ? NAKED_SUBSET : HIDDEN_SUBSET
-    case 'locked':
-      return f.direction === 'box-to-line' ? LOCKED_BOX_LINE : LOCKED_LINE_BOX
-    case 'thermo-length':
-      return THERMO_LENGTH
-    case 'thermo-bounds':
-      return THERMO_BOUNDS
-    case 'contradiction':
-      return CONTRADICTION
-  }
-}
-
-function firstOfFamily(steps: Step[], index: number): boolean {
-  const explainKey = (s: Step) => (s.facts.kind === 'subset' ? `subset-${s.facts.form}` : s.facts.kind)
-  const key = explainKey(steps[index])
-  for (let i = 0; i < index; i++) if (explainKey(steps[i]) === key) return false
+function firstWithIdea(steps: Step[], index: number, idea: string): boolean {
+  for (let i = 0; i < index; i++) if (narrationOf(steps[i]).explain?.idea === idea) return false
   return true
+}
+
+/** How a kind of step is said. Fields that cost something are functions, read only when needed. */
+interface Narration {
+  /** lines of one family never repeat a phrasing back to back */
+  family: string
+  /** the idea behind the step, explained once, before the first step of a script that relies on it */
+  explain?: { idea: string; words: () => string }
+  /** the step's phrasings, its facts filled in */
+  phrasings: () => ((s: Said) => string)[]
+  /** what the line says after the phrasing */
+  sayAlso: { eliminations: boolean; placements: boolean }
+}
+
+// A single's phrasing already says its placement; subsets and locked candidates only matter
+// through what they remove, so they say it; the rest say any placement they lead to.
+const NOTHING_MORE = { eliminations: false, placements: false }
+const PLACEMENTS = { eliminations: false, placements: true }
+const ELIMINATIONS_AND_PLACEMENTS = { eliminations: true, placements: true }
+
+const NARRATION: FactsTable<Narration> = {
+  'single-cell': (f) => ({ family: f.kind, phrasings: () => withFacts(SINGLE_CELL, f), sayAlso: NOTHING_MORE }),
+  'single-house': (f) => ({ family: f.kind, phrasings: () => withFacts(SINGLE_HOUSE, f), sayAlso: NOTHING_MORE }),
+  subset: (f) => ({
+    family: `subset-${f.form}`,
+    explain: { idea: `subset-${f.form}`, words: () => EXPLAIN[`subset-${f.form}`](f.cells.length) },
+    phrasings: () => withFacts(f.form === 'naked' ? NAKED_SUBSET : HIDDEN_SUBSET, f),
+    sayAlso: ELIMINATIONS_AND_PLACEMENTS,
+  }),
+  locked: (f) => ({
+    family: `locked-${f.direction}`,
+    // both directions rest on one idea, explained once
+    explain: { idea: 'locked', words: EXPLAIN.locked },
+    phrasings: () => withFacts(f.direction === 'box-to-line' ? LOCKED_BOX_LINE : LOCKED_LINE_BOX, f),
+    sayAlso: ELIMINATIONS_AND_PLACEMENTS,
+  }),
+  'thermo-length': (f) => ({
+    family: f.kind,
+    explain: { idea: f.kind, words: EXPLAIN['thermo-length'] },
+    phrasings: () => withFacts(THERMO_LENGTH, f),
+    sayAlso: PLACEMENTS,
+  }),
+  'thermo-bounds': (f) => ({
+    family: f.kind,
+    explain: { idea: f.kind, words: EXPLAIN['thermo-bounds'] },
+    phrasings: () => withFacts(THERMO_BOUNDS, f),
+    sayAlso: PLACEMENTS,
+  }),
+  contradiction: (f) => ({
+    family: f.kind,
+    explain: { idea: f.kind, words: EXPLAIN.contradiction },
+    phrasings: () => withFacts(CONTRADICTION, f),
+    sayAlso: PLACEMENTS,
+  }),
+}
+
+function narrationOf(step: Step): Narration {
+  return byFactsKind(NARRATION, step.facts)
+}
+
+function withFacts<K extends FactsKind>(phrasings: readonly Phrasing<K>[], f: FactsOf<K>): ((s: Said) => string)[] {
+  return phrasings.map((p) => (s) => p(f, s))
 }
 
 /** The shared area of a run's placements, and whether the run fills it. */
@@ -224,8 +216,8 @@ function runOf(src: ScriptSource, steps: number[], n: Namer): Run {
   for (const h of houses) {
     const index = h.of(cells[0])
     if (cells.every((c) => h.of(c) === index)) {
-      const area = Array.from({ length: 81 }, (_, c) => c).filter((c) => h.of(c) === index)
-      return { placements, area: houseWords({ kind: h.kind, index }, n), finishes: filled(area), n }
+      const house = { kind: h.kind, index }
+      return { placements, area: houseWords(house, n), finishes: filled(houseCells(house)), n }
     }
   }
   return { placements, area: null, finishes: false, n }

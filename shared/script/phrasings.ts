@@ -3,7 +3,7 @@
  * forces a result, and says what it gives (voice.md). They read only structured facts.
  * Sentences never start with a cell name, so r3c4 is never capitalised into "R3c4".
  */
-import type { Cell, ChainLink, Digit, Step, StepFacts } from '../engine/types'
+import type { Cell, ChainLink, Digit, FactsKind, FactsOf, Step } from '../engine/types'
 import {
   aDigit,
   andList,
@@ -26,8 +26,7 @@ export interface Said {
   step: Step
 }
 
-type Facts<K extends StepFacts['kind']> = Extract<StepFacts, { kind: K }>
-export type Phrasing<K extends StepFacts['kind']> = (f: Facts<K>, s: Said) => string
+export type Phrasing<K extends FactsKind> = (f: FactsOf<K>, s: Said) => string
 
 /** "the cell at row 3, column 4" in words, "r3c4" in coordinates. */
 export function theCell(cell: Cell, n: Namer): string {
@@ -37,9 +36,11 @@ export function theCell(cell: Cell, n: Namer): string {
 export const SINGLE_CELL: Phrasing<'single-cell'>[] = [
   (f, s) => `Look at everything ${theCell(f.cell, s.n)} can see: ${seenParts(f.seen)}. That leaves ${aDigit(f.digit)}.`,
   (f, s) =>
-    `Only one digit still fits ${theCell(f.cell, s.n)}. Between its ${seenSources(f.seen)}, the other eight are taken, so it's ${aDigit(f.digit)}.`,
-  (f, s) => `Count what ${theCell(f.cell, s.n)} sees: ${andList(seenAll(f.seen))}. The one digit missing is ${f.digit}, so in it goes.`,
-  (f, s) => `What's left for ${theCell(f.cell, s.n)}? Everything but ${aDigit(f.digit)} is already in its ${seenSources(f.seen)}. So that's ${aDigit(f.digit)}.`,
+    `Only one digit still fits ${theCell(f.cell, s.n)}. Between its row, column and box${earlier(f.seen, ', plus what we ruled out earlier')}, the other eight are taken, so it's ${aDigit(f.digit)}.`,
+  (f, s) =>
+    `Count what ${theCell(f.cell, s.n)} sees${earlier(f.seen, ', plus what we ruled out earlier')}: ${andList(seenAll(f.seen))}. The one digit missing is ${f.digit}, so in it goes.`,
+  (f, s) =>
+    `What's left for ${theCell(f.cell, s.n)}? Everything but ${aDigit(f.digit)} is already in its row, column and box${earlier(f.seen, ', or was ruled out earlier')}. So that's ${aDigit(f.digit)}.`,
 ]
 
 export const SINGLE_HOUSE: Phrasing<'single-house'>[] = [
@@ -181,12 +182,14 @@ export function eliminationsWords(step: Step, n: Namer): string | null {
   return `That takes ${andList(digits)} out of ${where}.`
 }
 
-function seenAll(seen: Facts<'single-cell'>['seen']): Digit[] {
-  return [...new Set([...seen.row, ...seen.column, ...seen.box, ...seen.thermometer])].sort((a, b) => a - b)
+type Seen = FactsOf<'single-cell'>['seen']
+
+function seenAll(seen: Seen): Digit[] {
+  return [...new Set([...seen.row, ...seen.column, ...seen.box, ...seen.ruledOut])].sort((a, b) => a - b)
 }
 
 /** "1, 3 and 9 in its row, 2 and 6 in its column and a 7 in its box"; each digit said once. */
-function seenParts(seen: Facts<'single-cell'>['seen']): string {
+function seenParts(seen: Seen): string {
   const used = new Set<Digit>()
   const parts: string[] = []
   const add = (digits: Digit[], where: string) => {
@@ -198,35 +201,37 @@ function seenParts(seen: Facts<'single-cell'>['seen']): string {
   add(seen.row, 'in its row')
   add(seen.column, 'in its column')
   add(seen.box, 'in its box')
-  add(seen.thermometer, 'ruled out by the thermometer')
+  add(seen.ruledOut, 'ruled out earlier')
   return parts.length > 0 ? andList(parts) : 'every other digit'
 }
 
-function seenSources(seen: Facts<'single-cell'>['seen']): string {
-  const sources = ['row', 'column', 'box']
-  if (seen.thermometer.length > 0) sources.push('thermometer')
-  return andList(sources)
+/**
+ * `words` when earlier steps removed some of the cell's digits, else nothing. The facts don't say
+ * which step removed them (a thermometer, a pair, locked candidates…), so neither does the script.
+ */
+function earlier(seen: Seen, words: string): string {
+  return seen.ruledOut.length > 0 ? words : ''
 }
 
 function subsetName(size: number): string {
   return size === 2 ? 'pair' : size === 3 ? 'triple' : `set of ${countWords(size)}`
 }
 
-function bulbMax(f: Facts<'thermo-length'>): number {
+function bulbMax(f: FactsOf<'thermo-length'>): number {
   return f.ranges[0]?.max ?? 10 - f.length
 }
 
-function tipMin(f: Facts<'thermo-length'>): number {
+function tipMin(f: FactsOf<'thermo-length'>): number {
   return f.ranges[f.ranges.length - 1]?.min ?? f.length
 }
 
-function lengthRange(f: Facts<'thermo-length'>, i: number): string {
+function lengthRange(f: FactsOf<'thermo-length'>, i: number): string {
   const r = f.ranges[i]
   if (!r) return 'is squeezed'
   return r.min === r.max ? `has to be ${r.min}` : `${r.min} to ${r.max}`
 }
 
-function withSudoku(f: Facts<'thermo-bounds'>): string {
+function withSudoku(f: FactsOf<'thermo-bounds'>): string {
   return f.withSudoku ? `, once we count what its row, column and box already hold` : ''
 }
 
@@ -243,7 +248,7 @@ function thermoCell(cell: Cell, thermometer: number, n: Namer): string {
   return `the ${ORDINALS[i]} cell`
 }
 
-function rangesWords(f: Facts<'thermo-bounds'>, n: Namer): string {
+function rangesWords(f: FactsOf<'thermo-bounds'>, n: Namer): string {
   const shown = f.ranges.slice(0, 3).map((r) => {
     const where = thermoCell(r.cell, f.thermometer, n)
     return r.min === r.max ? `${where} has to be ${r.min}` : `${where} is now ${r.min} to ${r.max}`
@@ -265,7 +270,7 @@ function chainLinkWords(link: ChainLink, n: Namer): string {
 }
 
 /** The forced consequences, at most three aloud: a viewer follows a short story, not a list. */
-function chainWords(f: Facts<'contradiction'>, n: Namer, connectives: [string, string, string]): string {
+function chainWords(f: FactsOf<'contradiction'>, n: Namer, connectives: [string, string, string]): string {
   const links = f.chain.slice(0, 3)
   const sentences = links.map((l, i) => `${connectives[i]} ${chainLinkWords(l, n)}.`)
   if (f.chain.length > 3) sentences.push('A couple of steps later,')
@@ -273,7 +278,7 @@ function chainWords(f: Facts<'contradiction'>, n: Namer, connectives: [string, s
   return sentences.join(' ')
 }
 
-function breakWords(f: Facts<'contradiction'>, n: Namer): string {
+function breakWords(f: FactsOf<'contradiction'>, n: Namer): string {
   if (f.emptyCell !== undefined) return `${cellWords(f.emptyCell, n)} would have nothing left`
   if (f.emptyHouse) return `${houseWords(f.emptyHouse.house, n)} would have nowhere for its ${f.emptyHouse.digit}`
   return 'the grid would break'

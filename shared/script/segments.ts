@@ -4,7 +4,8 @@
  * at chapter starts all agree.
  */
 import type { Step } from '../engine/types'
-import { boxOf, boxWords, capitalise } from './words'
+import { boxOf } from '../grid'
+import { boxWords, capitalise } from './words'
 
 export interface Segment {
   /** index of the step the segment starts at */

@@ -2,12 +2,8 @@
  * How things are said aloud: cells, houses, thermometers, digit lists and counts,
  * in either naming style (plain words, or r3c4 coordinates).
  */
-import type { Cell, Digit, HouseRef } from '../engine/types'
+import { boxOf, colOf, rowOf, type Cell, type Digit, type HouseRef } from '../grid'
 import type { NamingStyle } from '../schemas/outline'
-
-export const rowOf = (cell: Cell): number => Math.floor(cell / 9)
-export const colOf = (cell: Cell): number => cell % 9
-export const boxOf = (cell: Cell): number => 3 * Math.floor(cell / 27) + Math.floor((cell % 9) / 3)
 
 // Boxes by position: a viewer sees "the top-left box" faster than they count to box 7.
 const BOX_WORDS = ['top-left', 'top-middle', 'top-right', 'middle-left', 'central', 'middle-right', 'bottom-left', 'bottom-middle', 'bottom-right']

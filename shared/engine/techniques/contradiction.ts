@@ -15,8 +15,8 @@
  * the assumption nearest the previous focus. All trial state lives in typed arrays reused across
  * trials: a trial allocates nothing unless its chain may be chosen.
  */
-import * as geometry from '../../grid/geometry'
-import { ALL_DIGITS, digitsOf, houseRef } from '../../grid/geometry'
+import * as geometry from '../../grid'
+import { ALL_DIGITS, digitsOf, houseRef } from '../../grid'
 import type { Board } from '../board'
 import type { Cell, ChainLink, HouseRef } from '../types'
 import { distance, type Technique } from './deduction'

@@ -3,7 +3,7 @@
  * solve loop adds. `Picker` keeps the candidate deduction nearest to the previous focus,
  * building each record only when it beats the one held.
  */
-import { cellDistance, digitsOf } from '../../grid/geometry'
+import { cellDistance, digitsOf } from '../../grid'
 import type { Board } from '../board'
 import type { Cell, Elimination, Step } from '../types'
 

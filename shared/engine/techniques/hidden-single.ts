@@ -1,5 +1,5 @@
 /** Only place for a digit in a row, column or box (hidden single). */
-import { ALL_DIGITS, HOUSES, PEERS, houseRef, lowestDigit } from '../../grid/geometry'
+import { ALL_DIGITS, HOUSES, PEERS, houseRef, lowestDigit } from '../../grid'
 import type { Board } from '../board'
 import type { Cell } from '../types'
 import { Picker, type Deduction, type Technique } from './deduction'

@@ -2,7 +2,7 @@
  * Pairs and triples, hidden form: k digits whose only places in a house are the same k cells,
  * so those cells drop every other digit.
  */
-import { ALL_DIGITS, HOUSES, POPCOUNT, digitsOf, houseRef } from '../../grid/geometry'
+import { ALL_DIGITS, HOUSES, POPCOUNT, digitsOf, houseRef } from '../../grid'
 import type { Cell } from '../types'
 import { Picker, eliminationsOf, type Technique } from './deduction'
 import { TECHNIQUES } from './catalog'

@@ -2,7 +2,7 @@
  * Locked candidates, both directions: a box whose places for a digit lie on one line clears
  * that digit from the rest of the line; a line whose places lie in one box clears the rest of the box.
  */
-import { HOUSES, boxOf, colOf, houseRef, rowOf } from '../../grid/geometry'
+import { HOUSES, boxOf, colOf, houseRef, rowOf } from '../../grid'
 import type { Board } from '../board'
 import type { Cell, HouseRef } from '../types'
 import { Picker, eliminationsOf, type Technique } from './deduction'

@@ -1,5 +1,5 @@
 /** Last candidate in a cell (naked single): every other digit is ruled out. */
-import { CELL_HOUSES, HOUSES, POPCOUNT, digitsOf, houseRef, lowestDigit } from '../../grid/geometry'
+import { CELL_HOUSES, HOUSES, POPCOUNT, digitsOf, houseRef, lowestDigit } from '../../grid'
 import type { Board } from '../board'
 import type { Cell, HouseRef } from '../types'
 import { Picker, type Deduction, type Technique } from './deduction'
@@ -22,7 +22,7 @@ function build(board: Board, cell: Cell): Deduction {
   const inRow = board.placedIn(rowH)
   const inCol = board.placedIn(colH) & ~inRow
   const inBox = board.placedIn(boxH) & ~inRow & ~inCol
-  const elsewhere = 0x1ff & ~board.cand[cell] & ~inRow & ~inCol & ~inBox
+  const ruledOut = 0x1ff & ~board.cand[cell] & ~inRow & ~inCol & ~inBox
   const houses: HouseRef[] = []
   const cells: Cell[] = []
   for (const [h, mask] of [[rowH, inRow], [colH, inCol], [boxH, inBox]] as const) {
@@ -31,7 +31,7 @@ function build(board: Board, cell: Cell): Deduction {
     for (const p of HOUSES[h]) if (p !== cell && board.digits[p] && mask & (1 << (board.digits[p] - 1))) cells.push(p)
   }
   const thermometers: number[] = []
-  if (elsewhere) board.thermometers.forEach((t, i) => t.includes(cell) && thermometers.push(i))
+  if (ruledOut) board.thermometers.forEach((t, i) => t.includes(cell) && thermometers.push(i))
   return {
     technique: 'naked-single',
     placements: [{ cell, digit }],
@@ -42,7 +42,7 @@ function build(board: Board, cell: Cell): Deduction {
       kind: 'single-cell',
       cell,
       digit,
-      seen: { row: digitsOf(inRow), column: digitsOf(inCol), box: digitsOf(inBox), thermometer: digitsOf(elsewhere) },
+      seen: { row: digitsOf(inRow), column: digitsOf(inCol), box: digitsOf(inBox), ruledOut: digitsOf(ruledOut) },
     },
     difficulty: TECHNIQUES['naked-single'].difficulty,
   }

@@ -2,7 +2,7 @@
  * Pairs and triples, naked form: k cells of a house whose candidates together are only k digits,
  * so those digits leave the rest of the house.
  */
-import { HOUSES, POPCOUNT, digitsOf, houseRef } from '../../grid/geometry'
+import { HOUSES, POPCOUNT, digitsOf, houseRef } from '../../grid'
 import type { Cell } from '../types'
 import { Picker, eliminationsOf, type Technique } from './deduction'
 import { TECHNIQUES } from './catalog'

@@ -4,7 +4,7 @@
  * ('max', walking from the tip). Candidates already narrowed by sudoku or by another
  * thermometer sharing a cell feed the same walk, which is how bounds combine with the grid.
  */
-import { ALL_DIGITS, digitsAbove, digitsBelow, digitsOf, highestDigit, lowestDigit } from '../../grid/geometry'
+import { ALL_DIGITS, digitsAbove, digitsBelow, digitsOf, highestDigit, lowestDigit } from '../../grid'
 import type { Board } from '../board'
 import type { Cell, Elimination } from '../types'
 import { Picker, type Technique } from './deduction'

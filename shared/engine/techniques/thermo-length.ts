@@ -2,7 +2,7 @@
  * Thermometer length rule: digits rise strictly from bulb to tip, so position i (from 1) of an
  * n-cell thermometer holds i … 9 − n + i, whatever else is known.
  */
-import { digitsAbove, digitsBelow } from '../../grid/geometry'
+import { digitsAbove, digitsBelow } from '../../grid'
 import type { Cell } from '../types'
 import { Picker, eliminationsOf, type Technique } from './deduction'
 import { TECHNIQUES } from './catalog'

@@ -13,8 +13,3 @@ export function digitsAfter(givens: string, steps: Step[], count: number): Uint8
   }
   return grid
 }
-
-/** The grid as 81 characters, '.' where empty. */
-export function gridString(digits: Uint8Array): string {
-  return Array.from(digits, (d) => (d === 0 ? '.' : String(d))).join('')
-}
