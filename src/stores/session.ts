@@ -1,5 +1,6 @@
 import { acceptHMRUpdate, defineStore } from 'pinia'
 import { computed, ref } from 'vue'
+import { useEventListener } from '@vueuse/core'
 import { signInResponseSchema } from '@shared/schemas/auth'
 import type { Membership, Role, SignInInput, SignInResponse, User } from '@shared/schemas/auth'
 import { getMe, signIn as postSignIn } from '@/api/auth'
@@ -111,8 +112,9 @@ export const useSessionStore = defineStore('session', () => {
     localStorage.setItem(SESSION_STORAGE_KEY, JSON.stringify(value))
   }
 
-  // Other tabs: signing out (or in as someone else) there applies here too.
-  window.addEventListener('storage', (event) => {
+  // Other tabs: signing out (or in as someone else) there applies here too. Bound to the store's scope, so a
+  // disposed or hot-replaced store stops listening.
+  useEventListener(window, 'storage', (event) => {
     if (event.key !== SESSION_STORAGE_KEY && event.key !== null) return
     const next = readSaved()
     if (!next) end('signed-out')

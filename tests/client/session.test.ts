@@ -1,8 +1,14 @@
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest'
-import { http } from '@/api/http'
-import { SESSION_STORAGE_KEY, useSessionStore } from '@/stores/session'
-import { freshPinia, jsonResponse, membership, mockApi, saveSession, sessionFixture } from './support'
 import { z } from 'zod'
+import { http as client } from '@/api/http'
+import { SESSION_STORAGE_KEY, useSessionStore } from '@/stores/session'
+import { api, apiPath, http, HttpResponse } from './msw'
+import { freshPinia, membership, saveSession, sessionFixture } from './support'
+
+/** What another tab's change to the saved session looks like from here. */
+function storageChangedElsewhere(key: string | null = SESSION_STORAGE_KEY): void {
+  window.dispatchEvent(new StorageEvent('storage', { key }))
+}
 
 describe('session store', () => {
   beforeEach(() => {
@@ -10,13 +16,19 @@ describe('session store', () => {
     freshPinia()
   })
   afterEach(() => {
+    useSessionStore().$dispose()
     vi.useRealTimers()
-    vi.unstubAllGlobals()
   })
 
   it('should sign in through the API and persist the token and user under gridcue.session', async () => {
     const answer = sessionFixture({ token: 'fresh' })
-    const fetchMock = mockApi({ 'POST /api/auth/sign-in': jsonResponse(200, answer) })
+    const sent: unknown[] = []
+    api.use(
+      http.post(apiPath('/auth/sign-in'), async ({ request }) => {
+        sent.push(await request.json())
+        return HttpResponse.json(answer)
+      }),
+    )
     const session = useSessionStore()
 
     await session.signIn({ email: 'ada@example.test', password: 'pw' })
@@ -24,8 +36,7 @@ describe('session store', () => {
     expect(session.isSignedIn).toBe(true)
     expect(session.user).toEqual(answer.user)
     expect(JSON.parse(localStorage.getItem(SESSION_STORAGE_KEY)!)).toEqual(answer)
-    const [, init] = fetchMock.mock.calls[0]!
-    expect(JSON.parse(String(init?.body))).toEqual({ email: 'ada@example.test', password: 'pw' })
+    expect(sent).toEqual([{ email: 'ada@example.test', password: 'pw' }])
   })
 
   it('should restore a saved session that has not expired', () => {
@@ -75,20 +86,25 @@ describe('session store', () => {
     vi.setSystemTime(new Date('2030-01-01T10:00:00Z'))
     saveSession(sessionFixture({ expiresAt: '2030-01-01T10:30:00Z' }))
     const session = useSessionStore()
-    const fetchMock = mockApi({ 'GET /api/ping': jsonResponse(200, {}) })
+    const authorization: (string | null)[] = []
+    api.use(
+      http.get(apiPath('/ping'), ({ request }) => {
+        authorization.push(request.headers.get('Authorization'))
+        return HttpResponse.json({})
+      }),
+    )
 
     vi.setSystemTime(new Date('2030-01-01T11:00:00Z'))
-    await http.get('/ping', z.object({}))
+    await client.get('/ping', z.object({}))
 
-    const headers = fetchMock.mock.calls[0]![1]?.headers as Record<string, string>
-    expect(headers.Authorization).toBeUndefined()
+    expect(authorization).toEqual([null])
     expect(session.isSignedIn).toBe(false)
   })
 
   it('should end the session when an API call answers 401', async () => {
     saveSession()
     const session = useSessionStore()
-    mockApi({ 'GET /api/auth/me': jsonResponse(401, { code: 'unauthorized', message: 'Sign in again' }) })
+    api.use(http.get(apiPath('/auth/me'), () => HttpResponse.json({ code: 'unauthorized', message: 'Sign in again' }, { status: 401 })))
 
     await expect(session.loadMemberships()).rejects.toMatchObject({ status: 401 })
 
@@ -108,19 +124,48 @@ describe('session store', () => {
     expect(localStorage.getItem(SESSION_STORAGE_KEY)).toBeNull()
   })
 
+  it('should sign out here when another tab signs out or clears the storage', () => {
+    saveSession()
+    const session = useSessionStore()
+
+    storageChangedElsewhere('some.other.key')
+    expect(session.isSignedIn).toBe(true)
+
+    localStorage.clear()
+    storageChangedElsewhere(null)
+    expect(session.isSignedIn).toBe(false)
+    expect(session.endReason).toBe('signed-out')
+  })
+
+  it('should take on the session another tab signed in with', () => {
+    saveSession()
+    const session = useSessionStore()
+    const bo = { id: 8, email: 'bo@example.test', name: 'Bo Reyes' }
+
+    saveSession(sessionFixture({ token: 'token-bo', user: bo }))
+    storageChangedElsewhere()
+
+    expect(session.token).toBe('token-bo')
+    expect(session.user).toEqual(bo)
+  })
+
   it('should answer roleIn and can from the memberships and the role table', async () => {
     saveSession()
-    const fetchMock = mockApi({
-      'GET /api/auth/me': jsonResponse(200, {
-        user: sessionFixture().user,
-        memberships: [membership(1, 'owner'), membership(2, 'presenter'), membership(3, 'editor'), membership(4, 'viewer')],
+    let meCalls = 0
+    api.use(
+      http.get(apiPath('/auth/me'), () => {
+        meCalls += 1
+        return HttpResponse.json({
+          user: sessionFixture().user,
+          memberships: [membership(1, 'owner'), membership(2, 'presenter'), membership(3, 'editor'), membership(4, 'viewer')],
+        })
       }),
-    })
+    )
     const session = useSessionStore()
 
     await Promise.all([session.loadMemberships(), session.loadMemberships()])
 
-    expect(fetchMock).toHaveBeenCalledTimes(1)
+    expect(meCalls).toBe(1)
     expect(session.roleIn(2)).toBe('presenter')
     expect(session.roleIn(99)).toBeNull()
     expect(session.can(1, 'members.manage')).toBe(true)
