@@ -1,99 +1,149 @@
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest'
-import { enableAutoUnmount, flushPromises } from '@vue/test-utils'
+import { screen, within } from '@testing-library/vue'
+import userEvent from '@testing-library/user-event'
+import type { Membership } from '@shared/schemas/auth'
 import App from '@/App.vue'
-import ChannelView from '@/views/ChannelView.vue'
 import { SESSION_STORAGE_KEY, useSessionStore } from '@/stores/session'
-import { createHarness, jsonResponse, membership, mockApi, mountAt, saveSession, sessionFixture } from './support'
+import { api, apiPath, http, HttpResponse } from './msw'
+import { renderAt } from './render'
+import { membership, saveSession, sessionFixture } from './support'
 
 const channel = { id: 12, name: 'Thermo Thursdays', slug: 'thermo-thursdays', description: 'Weekly thermometer solves', role: 'presenter', memberCount: 2 }
 
-enableAutoUnmount(afterEach)
+function answerMe(...memberships: Membership[]) {
+  api.use(http.get(apiPath('/auth/me'), () => HttpResponse.json({ user: sessionFixture().user, memberships })))
+}
+
+/** The channel facts as a screen reader reads the description list: each term with its definition. */
+function channelFacts(): Record<string, string> {
+  const terms = screen.getAllByRole('term')
+  const definitions = screen.getAllByRole('definition')
+  return Object.fromEntries(terms.map((term, i) => [term.textContent!.trim(), definitions[i]!.textContent!.trim()]))
+}
 
 describe('App shell', () => {
   beforeEach(() => {
     localStorage.clear()
   })
   afterEach(() => {
-    vi.unstubAllGlobals()
+    vi.useRealTimers()
   })
 
   it('should list your channels with your role in each', async () => {
     saveSession()
-    mockApi({ 'GET /api/channels': jsonResponse(200, [channel]) })
+    api.use(http.get(apiPath('/channels'), () => HttpResponse.json([channel])))
 
-    const { wrapper } = await mountAt(App, '/')
+    await renderAt(App, '/')
 
-    expect(wrapper.find('header').text()).toContain('Ada Lane')
-    expect(wrapper.find('main h1').text()).toBe('Your channels')
-    const card = wrapper.find('main li')
-    expect(card.text()).toContain('Thermo Thursdays')
-    expect(card.text()).toContain('Presenter')
-    expect(card.find('a').attributes('href')).toMatch(/^\/channels\/12(\/|$)/)
+    expect(screen.getByText('Ada Lane')).toHaveTextContent('Signed in as Ada Lane')
+    expect(screen.getByRole('heading', { level: 1 })).toHaveTextContent('Your channels')
+    const [card, ...others] = within(screen.getByRole('list', { name: 'Channels' })).getAllByRole('listitem')
+    expect(others).toHaveLength(0)
+    expect(within(card!).getByRole('link', { name: 'Thermo Thursdays' })).toHaveAttribute('href', '/channels/12')
+    expect(card).toHaveTextContent('Presenter')
   })
 
   it('should show a channel, your role and its members to a presenter', async () => {
     saveSession()
-    mockApi({
-      'GET /api/auth/me': jsonResponse(200, { user: sessionFixture().user, memberships: [membership(12, 'presenter')] }),
-      'GET /api/channels/12': jsonResponse(200, channel),
-      'GET /api/channels/12/members': jsonResponse(200, [
-        { userId: 7, name: 'Ada Lane', email: 'ada@example.test', role: 'presenter' },
-        { userId: 8, name: 'Bo Reyes', email: 'bo@example.test', role: 'owner' },
-      ]),
-    })
+    answerMe(membership(12, 'presenter'))
+    api.use(
+      http.get(apiPath('/channels/12'), () => HttpResponse.json(channel)),
+      http.get(apiPath('/channels/12/members'), () =>
+        HttpResponse.json([
+          { userId: 7, name: 'Ada Lane', email: 'ada@example.test', role: 'presenter' },
+          { userId: 8, name: 'Bo Reyes', email: 'bo@example.test', role: 'owner' },
+        ]),
+      ),
+    )
 
-    const harness = createHarness()
-    await useSessionStore().loadMemberships()
-    const { wrapper } = await mountAt(ChannelView, '/', harness, { channelId: 12 })
+    await renderAt(App, '/channels/12/members')
 
-    expect(wrapper.find('h1').text()).toBe('Thermo Thursdays')
-    expect(wrapper.find('dl').text()).toContain('Presenter')
-    expect(wrapper.text()).toContain('Bo Reyes')
-    expect(wrapper.text()).toContain('(you)')
+    expect(await screen.findByRole('heading', { level: 1, name: 'Thermo Thursdays' })).toBeInTheDocument()
+    expect(channelFacts()).toMatchObject({ 'Your role': 'Presenter', Members: '2' })
+    const members = within(screen.getByRole('region', { name: 'Members' }))
+    const rows = await members.findAllByRole('listitem')
+    expect(rows.map((row) => row.textContent)).toEqual([
+      expect.stringMatching(/^Ada Lane \(you\)\s*ada@example\.test\s*Presenter$/),
+      expect.stringMatching(/^Bo Reyes\s*bo@example\.test\s*Owner$/),
+    ])
   })
 
-  it('should not ask a viewer\'s members list from the API', async () => {
+  it("should not ask a viewer's members list from the API", async () => {
     saveSession()
-    const fetchMock = mockApi({
-      'GET /api/auth/me': jsonResponse(200, { user: sessionFixture().user, memberships: [membership(12, 'viewer')] }),
-      'GET /api/channels/12': jsonResponse(200, { ...channel, role: 'viewer' }),
-    })
+    answerMe(membership(12, 'viewer'))
+    let membersAsked = false
+    api.use(
+      http.get(apiPath('/channels/12'), () => HttpResponse.json({ ...channel, role: 'viewer' })),
+      http.get(apiPath('/channels/12/members'), () => {
+        membersAsked = true
+        return HttpResponse.json([])
+      }),
+    )
 
-    const harness = createHarness()
-    await useSessionStore().loadMemberships()
-    const { wrapper } = await mountAt(ChannelView, '/', harness, { channelId: 12 })
+    await renderAt(App, '/channels/12/members')
 
-    expect(wrapper.find('dl').text()).toContain('Viewer')
-    expect(wrapper.text()).toContain('Owners, presenters and editors can see who else is in this channel.')
-    expect(fetchMock.mock.calls.map(([url]) => String(url))).not.toContain('/api/channels/12/members')
+    expect(await screen.findByRole('heading', { level: 1, name: 'Thermo Thursdays' })).toBeInTheDocument()
+    expect(channelFacts()).toMatchObject({ 'Your role': 'Viewer' })
+    expect(screen.getByRole('region', { name: 'Members' })).toHaveTextContent(
+      'Owners, presenters and editors can see who else is in this channel.',
+    )
+    expect(membersAsked).toBe(false)
   })
 
   it('should sign out from the header, clear cached data and return to sign-in', async () => {
     saveSession()
-    mockApi({ 'GET /api/channels': jsonResponse(200, [channel]) })
-    const { wrapper, router, queryClient } = await mountAt(App, '/')
+    api.use(http.get(apiPath('/channels'), () => HttpResponse.json([channel])))
+    const { router, queryClient } = await renderAt(App, '/')
+    await screen.findByRole('link', { name: 'Thermo Thursdays' })
 
-    const signOut = wrapper.findAll('header button').find((b) => b.text() === 'Sign out')!
-    await signOut.trigger('click')
-    await flushPromises()
+    await userEvent.click(screen.getByRole('button', { name: 'Sign out' }))
 
-    expect(router.currentRoute.value.name).toBe('sign-in')
+    expect(await screen.findByRole('heading', { level: 1, name: 'Sign in' })).toBeInTheDocument()
     expect(router.currentRoute.value.query).toEqual({})
+    expect(screen.queryByRole('button', { name: 'Sign out' })).not.toBeInTheDocument()
+    expect(screen.queryByText('Ada Lane')).not.toBeInTheDocument()
+    expect(screen.queryByText('Your session has ended', { exact: false })).not.toBeInTheDocument()
     expect(localStorage.getItem(SESSION_STORAGE_KEY)).toBeNull()
     expect(queryClient.getQueryCache().getAll()).toHaveLength(0)
-    expect(wrapper.find('header').exists()).toBe(false)
   })
 
   it('should clear the session and go to sign-in, coming back afterwards, when an API call answers 401', async () => {
     saveSession()
-    mockApi({ 'GET /api/channels': jsonResponse(401, { code: 'unauthorized', message: 'Token expired' }) })
+    api.use(http.get(apiPath('/channels'), () => HttpResponse.json({ code: 'unauthorized', message: 'Token expired' }, { status: 401 })))
 
-    const { wrapper, router } = await mountAt(App, '/')
-    await flushPromises()
+    const { router } = await renderAt(App, '/')
 
+    expect(await screen.findByText('Your session has ended', { exact: false })).toBeInTheDocument()
     expect(useSessionStore().isSignedIn).toBe(false)
     expect(router.currentRoute.value.name).toBe('sign-in')
     expect(router.currentRoute.value.query).toMatchObject({ redirect: '/', reason: 'expired' })
-    expect(wrapper.text()).toContain('Your session has ended')
+  })
+  it('should send you to sign-in when the token runs out on an open screen, and back there after signing in again', async () => {
+    // The clock still ticks on its own (for the API answers and the screen's updates) but can be jumped ahead.
+    vi.useFakeTimers({ shouldAdvanceTime: true })
+    vi.setSystemTime(new Date('2030-01-01T10:00:00Z'))
+    saveSession(sessionFixture({ expiresAt: '2030-01-01T10:30:00Z' }))
+    api.use(
+      http.get(apiPath('/channels'), () => HttpResponse.json([channel])),
+      http.post(apiPath('/auth/sign-in'), () => HttpResponse.json(sessionFixture())),
+    )
+    const user = userEvent.setup({ advanceTimers: vi.advanceTimersByTime })
+    const { router } = await renderAt(App, '/')
+    expect(await screen.findByRole('link', { name: 'Thermo Thursdays' })).toBeInTheDocument()
+
+    await vi.advanceTimersByTimeAsync(29 * 60 * 1000)
+    expect(screen.getByRole('button', { name: 'Sign out' })).toBeInTheDocument()
+    await vi.advanceTimersByTimeAsync(60 * 1000)
+
+    expect(await screen.findByText('Your session has ended', { exact: false })).toBeInTheDocument()
+    expect(screen.queryByRole('link', { name: 'Thermo Thursdays' })).not.toBeInTheDocument()
+    expect(router.currentRoute.value.query).toMatchObject({ redirect: '/', reason: 'expired' })
+
+    await user.type(screen.getByLabelText('E-mail'), 'ada@example.test')
+    await user.type(screen.getByLabelText('Password'), 'correct horse')
+    await user.click(screen.getByRole('button', { name: 'Sign in' }))
+
+    expect(await screen.findByRole('link', { name: 'Thermo Thursdays' })).toBeInTheDocument()
+    expect(router.currentRoute.value.fullPath).toBe('/')
   })
 })

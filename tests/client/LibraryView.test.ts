@@ -1,24 +1,29 @@
-import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest'
-import { enableAutoUnmount } from '@vue/test-utils'
-import { defineComponent, h } from 'vue'
-import { RouterView } from 'vue-router'
+import { beforeEach, describe, expect, it } from 'vitest'
+import { screen, within } from '@testing-library/vue'
 import type { Role } from '@shared/schemas/auth'
-import { jsonResponse, membership, mockApi, mountAt, saveSession, sessionFixture } from './support'
+import App from '@/App.vue'
+import { api, apiPath, http, HttpResponse } from './msw'
+import { renderAt } from './render'
+import { membership, saveSession, sessionFixture } from './support'
 
-enableAutoUnmount(afterEach)
-
-const Shell = defineComponent({ render: () => h(RouterView) })
 const channel = { id: 1, name: 'Slow Thermos', slug: 'slow-thermos', description: '', role: 'presenter', memberCount: 3 }
+const puzzles = [
+  { id: 42, channelId: 1, title: 'Morning climb', author: 'Rosa Ilves', check: 'unique', outlineCount: 2, version: 3, updatedAt: '2025-05-01T10:00:00.000Z' },
+  { id: 43, channelId: 1, title: 'Half-built', author: '', check: 'multiple-solutions', outlineCount: 0, version: 1, updatedAt: '2025-05-02T10:00:00.000Z' },
+]
 
-function api(role: Role) {
-  return mockApi({
-    'GET /api/auth/me': jsonResponse(200, { user: sessionFixture().user, memberships: [membership(1, role)] }),
-    'GET /api/channels/1': jsonResponse(200, { ...channel, role }),
-    'GET /api/channels/1/puzzles': jsonResponse(200, [
-      { id: 42, channelId: 1, title: 'Morning climb', author: 'Rosa Ilves', check: 'unique', outlineCount: 2, version: 3, updatedAt: '2025-05-01T10:00:00.000Z' },
-      { id: 43, channelId: 1, title: 'Half-built', author: '', check: 'multiple-solutions', outlineCount: 0, version: 1, updatedAt: '2025-05-02T10:00:00.000Z' },
-    ]),
-  })
+/** Channel 1 as a member with `role` sees it; returns whether its puzzle list was asked for. */
+function answerAs(role: Role): { puzzlesAsked: boolean } {
+  const seen = { puzzlesAsked: false }
+  api.use(
+    http.get(apiPath('/auth/me'), () => HttpResponse.json({ user: sessionFixture().user, memberships: [membership(1, role)] })),
+    http.get(apiPath('/channels/1'), () => HttpResponse.json({ ...channel, role })),
+    http.get(apiPath('/channels/1/puzzles'), () => {
+      seen.puzzlesAsked = true
+      return HttpResponse.json(puzzles)
+    }),
+  )
+  return seen
 }
 
 describe('LibraryView', { timeout: 20_000 }, () => {
@@ -26,28 +31,28 @@ describe('LibraryView', { timeout: 20_000 }, () => {
     localStorage.clear()
     saveSession()
   })
-  afterEach(() => {
-    vi.unstubAllGlobals()
-  })
 
   it("should list the channel's puzzles with their check and offer New puzzle to a presenter", async () => {
-    api('presenter')
-    const { wrapper } = await mountAt(Shell, '/channels/1')
-    const rows = wrapper.findAll('tbody tr')
+    answerAs('presenter')
+    await renderAt(App, '/channels/1')
+
+    const table = await screen.findByRole('table', { name: 'Puzzles' })
+    const [, ...rows] = within(table).getAllByRole('row')
     expect(rows).toHaveLength(2)
-    expect(wrapper.text()).toContain('Morning climb')
-    expect(wrapper.text()).toContain('Unique solution')
-    expect(wrapper.text()).toContain('Several solutions')
-    expect(wrapper.findAll('a').find((a) => a.text() === 'Morning climb')!.attributes('href')).toBe('/channels/1/puzzles/42')
-    expect(wrapper.findAll('a').find((a) => a.text() === 'New puzzle')!.attributes('href')).toBe('/channels/1/puzzles/new')
+    const climb = within(table).getByRole('row', { name: /Morning climb/ })
+    expect(within(climb).getByRole('link', { name: 'Morning climb' })).toHaveAttribute('href', '/channels/1/puzzles/42')
+    expect(climb).toHaveTextContent('Unique solution')
+    expect(within(table).getByRole('row', { name: /Half-built/ })).toHaveTextContent('Several solutions')
+    expect(screen.getByRole('link', { name: 'New puzzle' })).toHaveAttribute('href', '/channels/1/puzzles/new')
   })
 
   it('should show a viewer a short note instead of the puzzles', async () => {
-    const fetchMock = api('viewer')
-    const { wrapper } = await mountAt(Shell, '/channels/1')
-    expect(wrapper.text()).toContain('worked on by the channel')
-    expect(wrapper.find('table').exists()).toBe(false)
-    expect(wrapper.text()).not.toContain('New puzzle')
-    expect(fetchMock.mock.calls.some(([url]) => String(url) === '/api/channels/1/puzzles')).toBe(false)
+    const seen = answerAs('viewer')
+    await renderAt(App, '/channels/1')
+
+    expect(await screen.findByText('worked on by the channel', { exact: false })).toBeInTheDocument()
+    expect(screen.queryByRole('table')).not.toBeInTheDocument()
+    expect(screen.queryByRole('link', { name: 'New puzzle' })).not.toBeInTheDocument()
+    expect(seen.puzzlesAsked).toBe(false)
   })
 })

@@ -1,112 +1,119 @@
-import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest'
-import { enableAutoUnmount, flushPromises } from '@vue/test-utils'
+import { beforeEach, describe, expect, it } from 'vitest'
+import { screen } from '@testing-library/vue'
+import userEvent from '@testing-library/user-event'
 import App from '@/App.vue'
 import { useSessionStore } from '@/stores/session'
-import { jsonResponse, mockApi, mountAt, sessionFixture } from './support'
+import { api, apiPath, http, HttpResponse } from './msw'
+import { renderAt } from './render'
+import { sessionFixture } from './support'
 
-function field(wrapper: Awaited<ReturnType<typeof mountAt>>['wrapper'], label: string) {
-  const id = wrapper.findAll('label').find((l) => l.text() === label)!.attributes('for')
-  return wrapper.find(`#${id}`)
+/** Answers every sign-in with `status` and `body`, keeping what was sent. */
+function answerSignIn(status: number, body: Record<string, unknown>) {
+  const sent: unknown[] = []
+  api.use(
+    http.post(apiPath('/auth/sign-in'), async ({ request }) => {
+      sent.push(await request.json())
+      return HttpResponse.json(body, { status })
+    }),
+  )
+  return sent
 }
 
-enableAutoUnmount(afterEach)
+async function signInWith(email: string, password: string) {
+  const user = userEvent.setup()
+  if (email) await user.type(screen.getByLabelText('E-mail'), email)
+  if (password) await user.type(screen.getByLabelText('Password'), password)
+  await user.click(screen.getByRole('button', { name: 'Sign in' }))
+}
 
 describe('SignInView', () => {
   beforeEach(() => {
     localStorage.clear()
   })
-  afterEach(() => {
-    vi.unstubAllGlobals()
-  })
 
   it('should show a message under each empty field and not call the API', async () => {
-    const fetchMock = mockApi({})
-    const { wrapper } = await mountAt(App, '/sign-in')
+    const sent = answerSignIn(200, sessionFixture())
+    await renderAt(App, '/sign-in')
 
-    await wrapper.find('form').trigger('submit')
+    await signInWith('', '')
 
-    expect(wrapper.text()).toContain('Enter your e-mail address')
-    expect(wrapper.text()).toContain('Enter your password')
-    expect(field(wrapper, 'E-mail').attributes('aria-invalid')).toBe('true')
-    expect(fetchMock).not.toHaveBeenCalled()
+    expect(screen.getByLabelText('E-mail')).toHaveAccessibleDescription('Enter your e-mail address')
+    expect(screen.getByLabelText('E-mail')).toBeInvalid()
+    expect(screen.getByLabelText('Password')).toHaveAccessibleDescription('Enter your password')
+    expect(sent).toEqual([])
   })
 
   it('should explain a malformed e-mail address and clear the message once it is fixed', async () => {
-    mockApi({})
-    const { wrapper } = await mountAt(App, '/sign-in')
+    await renderAt(App, '/sign-in')
 
-    await field(wrapper, 'E-mail').setValue('ada-at-example')
-    await field(wrapper, 'Password').setValue('pw')
-    await wrapper.find('form').trigger('submit')
-    expect(wrapper.text()).toContain('Enter a valid e-mail address')
+    await signInWith('ada-at-example', 'pw')
+    expect(screen.getByLabelText('E-mail')).toHaveAccessibleDescription('Enter a valid e-mail address')
 
-    await field(wrapper, 'E-mail').setValue('ada@example.test')
-    expect(wrapper.text()).not.toContain('Enter a valid e-mail address')
+    const email = screen.getByLabelText('E-mail')
+    await userEvent.clear(email)
+    await userEvent.type(email, 'ada@example.test')
+    expect(email).not.toHaveAccessibleDescription()
+    expect(screen.queryByText('Enter a valid e-mail address')).not.toBeInTheDocument()
   })
 
   it('should sign in through the API and go back to the page that asked', async () => {
-    const fetchMock = mockApi({
-      'POST /api/auth/sign-in': jsonResponse(200, sessionFixture()),
-      'GET /api/channels': jsonResponse(200, []),
-    })
-    const { wrapper, router } = await mountAt(App, '/sign-in?redirect=/no-such-page')
+    const sent = answerSignIn(200, sessionFixture())
+    const { router } = await renderAt(App, '/sign-in?redirect=/no-such-page')
 
-    await field(wrapper, 'E-mail').setValue('  ada@example.test ')
-    await field(wrapper, 'Password').setValue('correct horse')
-    await wrapper.find('form').trigger('submit')
-    await flushPromises()
+    await signInWith('  ada@example.test ', 'correct horse')
 
-    const [url, init] = fetchMock.mock.calls[0]!
-    expect(url).toBe('/api/auth/sign-in')
-    expect(init?.method).toBe('POST')
-    expect(JSON.parse(String(init?.body))).toEqual({ email: 'ada@example.test', password: 'correct horse' })
-    expect(useSessionStore().isSignedIn).toBe(true)
     // The target view is lazy-loaded, so the navigation ends a little after the API answer.
-    await vi.waitFor(() => expect(router.currentRoute.value.fullPath).toBe('/no-such-page'))
+    expect(await screen.findByRole('heading', { level: 1, name: 'Page not found' })).toBeInTheDocument()
+    expect(router.currentRoute.value.fullPath).toBe('/no-such-page')
+    expect(sent).toEqual([{ email: 'ada@example.test', password: 'correct horse' }])
+    expect(useSessionStore().isSignedIn).toBe(true)
   })
 
   it('should say "E-mail or password is wrong" when the API refuses the credentials', async () => {
-    mockApi({
-      'POST /api/auth/sign-in': jsonResponse(401, { code: 'bad-credentials', message: 'E-mail or password is wrong' }),
-    })
-    const { wrapper, router } = await mountAt(App, '/sign-in')
+    answerSignIn(401, { code: 'bad-credentials', message: 'E-mail or password is wrong' })
+    const { router } = await renderAt(App, '/sign-in')
 
-    await field(wrapper, 'E-mail').setValue('ada@example.test')
-    await field(wrapper, 'Password').setValue('nope')
-    await wrapper.find('form').trigger('submit')
-    await flushPromises()
+    await signInWith('ada@example.test', 'nope')
 
-    expect(wrapper.find('[role="alert"]').text()).toContain('E-mail or password is wrong')
+    expect(await screen.findByRole('alert')).toHaveTextContent('E-mail or password is wrong')
     expect(router.currentRoute.value.name).toBe('sign-in')
+    expect(useSessionStore().isSignedIn).toBe(false)
   })
 
-  it('should put the server\'s field messages under the fields for invalid input', async () => {
-    mockApi({
-      'POST /api/auth/sign-in': jsonResponse(400, {
-        code: 'invalid-input',
-        message: 'Invalid input',
-        details: [{ path: ['email'], message: 'This address cannot receive mail' }],
-      }),
+  it("should put the server's field messages under the fields for invalid input", async () => {
+    answerSignIn(400, {
+      code: 'invalid-input',
+      message: 'Invalid input',
+      details: [{ path: ['email'], message: 'This address cannot receive mail' }],
     })
-    const { wrapper } = await mountAt(App, '/sign-in')
+    await renderAt(App, '/sign-in')
 
-    await field(wrapper, 'E-mail').setValue('ada@example.test')
-    await field(wrapper, 'Password').setValue('pw')
-    await wrapper.find('form').trigger('submit')
-    await flushPromises()
+    await signInWith('ada@example.test', 'pw')
 
-    expect(wrapper.text()).toContain('This address cannot receive mail')
+    await screen.findByText('Check the highlighted fields.')
+    expect(screen.getByLabelText('E-mail')).toHaveAccessibleDescription('This address cannot receive mail')
+    expect(screen.getByLabelText('Password')).not.toHaveAccessibleDescription()
   })
 
   it('should ask to wait after too many attempts', async () => {
-    mockApi({ 'POST /api/auth/sign-in': jsonResponse(429, { code: 'too-many-attempts', message: 'Slow down' }) })
-    const { wrapper } = await mountAt(App, '/sign-in')
+    answerSignIn(429, { code: 'too-many-attempts', message: 'Slow down' })
+    await renderAt(App, '/sign-in')
 
-    await field(wrapper, 'E-mail').setValue('ada@example.test')
-    await field(wrapper, 'Password').setValue('pw')
-    await wrapper.find('form').trigger('submit')
-    await flushPromises()
+    await signInWith('ada@example.test', 'pw')
 
-    expect(wrapper.text()).toContain('Too many attempts')
+    expect(await screen.findByText('Too many attempts', { exact: false })).toBeInTheDocument()
+  })
+  it('should show the password on request and hide it again', async () => {
+    await renderAt(App, '/sign-in')
+    const password = screen.getByLabelText('Password')
+    await userEvent.type(password, 'correct horse')
+    expect(password).toHaveAttribute('type', 'password')
+
+    await userEvent.click(screen.getByRole('button', { name: 'Show password', pressed: false }))
+    expect(password).toHaveAttribute('type', 'text')
+    expect(password).toHaveValue('correct horse')
+
+    await userEvent.click(screen.getByRole('button', { name: 'Show password', pressed: true }))
+    expect(password).toHaveAttribute('type', 'password')
   })
 })
