@@ -1,18 +1,32 @@
 #!/usr/bin/env bash
-# `npm run dev`: Vite's dev server with hot reload, and the API restarting on change.
+# `npm run dev`: Vite's dev server with hot reload, and the API restarting on change. Ctrl-C stops both,
+# and the database if this run started it. Arguments go to Vite (`npm run dev -- --port 5190`).
 source "$(dirname "$0")/lib/setup.sh"
 
 PG_PORT=${GRIDCUE_PG_PORT:-5433}
 ensure_dependencies
 ensure_jwt_secret
-if [ -z "${DATABASE_URL:-}" ]; then
-  ensure_cluster main "$PG_PORT"
-  ensure_database "$PG_PORT" gridcue
-  export DATABASE_URL="postgres://postgres@127.0.0.1:$PG_PORT/gridcue"
-fi
+open_database main "$PG_PORT" gridcue
+trap close_database EXIT
 run_tsx scripts/migrate.ts --seed
+
 export NODE_ENV=development
 cd "$ROOT"
-trap 'kill 0' INT TERM EXIT
-npx tsx watch --clear-screen=false server/index.ts &
-npx vite --host 127.0.0.1
+# Both run in the background so a signal reaches this script at once (a foreground child would hold
+# it back until that child ends); Vite keeps the terminal's input for its key shortcuts.
+node_modules/.bin/tsx watch --clear-screen=false server/index.ts &
+SERVER_PIDS=($!)
+node_modules/.bin/vite --host 127.0.0.1 "$@" <&0 &
+SERVER_PIDS+=($!)
+
+stop() {
+  trap - INT TERM
+  kill "${SERVER_PIDS[@]}" 2>/dev/null
+  wait
+  exit "${STATUS:-0}"
+}
+trap stop INT TERM
+# when either server ends on its own, stop the other one with it
+STATUS=0
+wait -n || STATUS=$?
+stop

@@ -6,15 +6,8 @@ PG_PORT=${GRIDCUE_PG_PORT:-5433}
 ensure_dependencies
 ensure_jwt_secret
 
-STARTED_CLUSTER=
-if [ -z "${DATABASE_URL:-}" ]; then
-  ensure_cluster main "$PG_PORT"
-  STARTED_CLUSTER=$CLUSTER_DIR
-  ensure_database "$PG_PORT" gridcue
-  export DATABASE_URL="postgres://postgres@127.0.0.1:$PG_PORT/gridcue"
-else
-  log "using the database at DATABASE_URL; starting no PostgreSQL"
-fi
+open_database main "$PG_PORT" gridcue
+trap close_database EXIT
 
 run_tsx scripts/migrate.ts --seed
 
@@ -26,7 +19,6 @@ fi
 
 stop() {
   [ -n "${SERVER_PID:-}" ] && kill "$SERVER_PID" 2>/dev/null && wait "$SERVER_PID" 2>/dev/null
-  [ -n "$STARTED_CLUSTER" ] && { log "stopping PostgreSQL"; stop_cluster "$STARTED_CLUSTER"; }
   exit "${STATUS:-0}"
 }
 trap stop INT TERM

@@ -1,6 +1,6 @@
 #!/usr/bin/env bash
-# Shared set-up for `npm start` and `npm test`: dependencies, a project-local PostgreSQL on
-# loopback (unless DATABASE_URL points elsewhere), and the JWT secret. Sourced, not run.
+# Shared set-up for `npm start`, `npm run dev` and `npm test`: dependencies, a project-local
+# PostgreSQL on loopback (unless DATABASE_URL points elsewhere), and the JWT secret. Sourced, not run.
 set -euo pipefail
 
 ROOT=$(cd "$(dirname "${BASH_SOURCE[0]}")/../.." && pwd)
@@ -56,7 +56,8 @@ cluster_dir() {
   printf '%s' "$dir"
 }
 
-# ensure_cluster NAME PORT [throwaway]: initialise once, start if not running, print nothing else.
+# ensure_cluster NAME PORT [throwaway]: initialise once, start if not running. Sets CLUSTER_DIR,
+# and CLUSTER_STARTED=yes when this call started it (no when it was already running).
 ensure_cluster() {
   local name=$1 port=$2 throwaway=${3:-}
   ensure_postgres_binaries
@@ -77,8 +78,9 @@ ensure_cluster() {
       fi
     } >>"$dir/postgresql.conf"
   fi
+  CLUSTER_STARTED=no
   if as_pg_user "$PG_BIN/pg_ctl" -D "$dir" status >/dev/null 2>&1; then
-    log "PostgreSQL ($name) already running on 127.0.0.1:$port"
+    log "PostgreSQL ($name) already running on 127.0.0.1:$port; it stays running afterwards"
   else
     if "$PG_BIN/pg_isready" -q -h 127.0.0.1 -p "$port" 2>/dev/null; then
       die "port $port is taken by another server; set GRIDCUE_PG_PORT to a free port or DATABASE_URL to use that server"
@@ -86,6 +88,7 @@ ensure_cluster() {
     log "starting PostgreSQL ($name) on 127.0.0.1:$port"
     as_pg_user "$PG_BIN/pg_ctl" -D "$dir" -l "$dir/server.log" -o "-p $port" -w -t 60 start >/dev/null \
       || die "PostgreSQL did not start; see $dir/server.log"
+    CLUSTER_STARTED=yes
   fi
   CLUSTER_DIR=$dir
 }
@@ -93,6 +96,37 @@ ensure_cluster() {
 stop_cluster() {
   local dir=$1
   as_pg_user "$PG_BIN/pg_ctl" -D "$dir" -m fast -w stop >/dev/null 2>&1 || true
+}
+
+# open_database NAME PORT DB [throwaway]: the database start, dev and test run against. With
+# DATABASE_URL set, that server is used and none started. Otherwise the project cluster NAME runs on
+# 127.0.0.1:PORT with database DB (a throwaway cluster skips fsync and gets DB afresh every time) and
+# DATABASE_URL is exported. Pair it with close_database on exit.
+open_database() {
+  local name=$1 port=$2 db=$3 throwaway=${4:-}
+  OPENED_CLUSTER= OPENED_THROWAWAY=$throwaway
+  if [ -n "${DATABASE_URL:-}" ]; then
+    log "using the database at DATABASE_URL; starting no PostgreSQL${throwaway:+ (the tests empty it)}"
+    return 0
+  fi
+  ensure_cluster "$name" "$port" "$throwaway"
+  # a cluster that was already running belongs to whoever started it (another npm start, dev or test)
+  [ "$CLUSTER_STARTED" = yes ] && OPENED_CLUSTER=$CLUSTER_DIR
+  if [ "$throwaway" = throwaway ]; then recreate_database "$port" "$db"; else ensure_database "$port" "$db"; fi
+  export DATABASE_URL="postgres://postgres@127.0.0.1:$port/$db"
+}
+
+# Stops the cluster open_database started, if it did; safe to call more than once.
+close_database() {
+  [ -n "${OPENED_CLUSTER:-}" ] || return 0
+  log "stopping PostgreSQL"
+  stop_cluster "$OPENED_CLUSTER"
+  # a throwaway cluster parked in /var/tmp belongs to a checkout the postgres user can't enter (often a
+  # temporary clone): don't leave it behind
+  if [ "$OPENED_THROWAWAY" = throwaway ]; then
+    case "$OPENED_CLUSTER" in /var/tmp/gridcue-pg-*) rm -rf "$(dirname "$OPENED_CLUSTER")" ;; esac
+  fi
+  OPENED_CLUSTER=
 }
 
 ensure_database() {

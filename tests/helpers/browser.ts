@@ -9,7 +9,7 @@ import { testEnginePool } from './api'
 import { openTestDb, resetWithDemo, testConfig } from './db'
 
 /** Serves the built client (dist/) and the API, with a one-thread engine pool, on a free loopback port. */
-export async function serveApp(db: Db): Promise<{ url: string; close: () => Promise<void> }> {
+async function serveApp(db: Db): Promise<{ url: string; close: () => Promise<void> }> {
   const engine = testEnginePool()
   const app = createApp({ db, config: testConfig(), engine })
   const server: Server = await new Promise((resolve) => {
