@@ -3,9 +3,10 @@ import type { MaybeRefOrGetter, Ref } from 'vue'
 import { z } from 'zod'
 import { outlineSchema } from '@shared/schemas/outline'
 import type { Outline } from '@shared/schemas/outline'
-import { outlineRecordSchema } from '@shared/schemas/studio'
 import type { OutlineRecord } from '@shared/schemas/studio'
 import { isApiError } from '@/api/http'
+import { isStaleError } from '@/api/stale'
+import { useUnsavedChangesGuard } from '@/composables/useUnsavedChangesGuard'
 
 export type SaveStatus = 'saved' | 'saving' | 'unsaved' | 'conflict'
 
@@ -13,10 +14,8 @@ export interface AutosaveOptions {
   outlineId: MaybeRefOrGetter<number>
   /** The outline as it is now in the editor; every new snapshot counts as a change. */
   outline: Readonly<Ref<Outline | null>>
-  /** PATCH with the version read; resolves to the saved record, rejects with a 409 ApiError when stale. */
+  /** PATCH with the version read; resolves to the saved record, rejects with a StaleError<OutlineRecord> when stale (src/api/outlines.ts). */
   save: (version: number, outline: Outline) => Promise<OutlineRecord>
-  /** The server's copy, for a 409 that doesn't carry it (src/api/outlines.ts already attaches it). */
-  fetchCurrent?: () => Promise<OutlineRecord>
   /** Puts a document in the editor (taking the server's copy, discarding a restored one). */
   replace: (outline: Outline) => void
   onSaved?: (record: OutlineRecord) => void
@@ -45,8 +44,9 @@ export function localCopyKey(outlineId: number): string {
 
 /**
  * Saves the outline about a second after the last edit, with the version it was read at. Until the
- * server has it, the pending outline waits in localStorage. A 409 becomes a conflict holding both
- * copies; the person keeps theirs (saved over the newer version) or takes the server's.
+ * server has it, the pending outline waits in localStorage. A save refused as stale (someone saved
+ * first) becomes a conflict holding both copies; the person keeps theirs (saved over the newer
+ * version) or takes the server's.
  */
 export function useAutosave(options: AutosaveOptions) {
   const delayMs = options.delayMs ?? 1000
@@ -152,21 +152,17 @@ export function useAutosave(options: AutosaveOptions) {
         schedule(delayMs)
       }
     } catch (error) {
-      await handleFailure(error)
+      handleFailure(error)
     }
   }
 
-  async function handleFailure(error: unknown): Promise<void> {
-    if (isApiError(error) && error.status === 409) {
-      try {
-        const theirs = serverCopyIn(error) ?? (await fetchCurrent())
-        conflict.value = { mine: options.outline.value ?? theirs.outline, theirs }
-        status.value = 'conflict'
-        lastError.value = null
-        return
-      } catch (fetchError) {
-        error = fetchError
-      }
+  function handleFailure(error: unknown): void {
+    if (isStaleError<OutlineRecord>(error)) {
+      const theirs = error.current
+      conflict.value = { mine: options.outline.value ?? theirs.outline, theirs }
+      status.value = 'conflict'
+      lastError.value = null
+      return
     }
     status.value = 'unsaved'
     lastError.value = error instanceof Error ? error.message : 'The outline could not be saved.'
@@ -178,11 +174,6 @@ export function useAutosave(options: AutosaveOptions) {
   function mayPass(error: unknown): boolean {
     if (!isApiError(error)) return true
     return error.status === 0 || error.status === 429 || error.status >= 500
-  }
-
-  function fetchCurrent(): Promise<OutlineRecord> {
-    if (options.fetchCurrent) return options.fetchCurrent()
-    return Promise.reject(new Error('Someone else saved a newer version, and it could not be loaded.'))
   }
 
   /** Saves this browser's outline over the server's newer version. */
@@ -254,15 +245,11 @@ export function useAutosave(options: AutosaveOptions) {
     }
   }
 
-  // Closing the tab with edits on their way: the local copy has them, but say so before leaving.
-  function onBeforeUnload(event: BeforeUnloadEvent): void {
-    if (status.value === 'saved') return
-    event.preventDefault()
-  }
-  window.addEventListener('beforeunload', onBeforeUnload)
+  // Closing the tab with edits on their way: the local copy has them, but the browser asks before it goes.
+  // Moving to another screen needs no question, because the pending save is sent on the way out (below).
+  useUnsavedChangesGuard({ dirty: () => status.value !== 'saved' })
   onScopeDispose(() => {
     disposed = true
-    window.removeEventListener('beforeunload', onBeforeUnload)
     // Leaving the screen: send what's pending now rather than drop the timer (the local copy stays until it lands).
     if (status.value === 'unsaved') void saveNow()
     else clearTimeout(timer)
@@ -281,18 +268,6 @@ const STATUS_LABELS: Record<SaveStatus, string> = {
   saving: 'Saving…',
   unsaved: 'Unsaved changes',
   conflict: 'Conflict',
-}
-
-/** The server's copy when a 409 carries it (as `current`, directly or under `details`). */
-function serverCopyIn(error: unknown): OutlineRecord | null {
-  const holder = error as { current?: unknown; details?: unknown }
-  const details = holder.details as { current?: unknown } | undefined
-  for (const candidate of [holder.current, details?.current, holder.details]) {
-    if (candidate === undefined) continue
-    const parsed = outlineRecordSchema.safeParse(candidate)
-    if (parsed.success) return parsed.data
-  }
-  return null
 }
 
 /** Structural equality of JSON-like data, whatever order the keys came in. */

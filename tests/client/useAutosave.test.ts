@@ -1,25 +1,34 @@
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest'
 import { defineComponent, h } from 'vue'
-import { flushPromises, mount } from '@vue/test-utils'
+import { render, screen, within } from '@testing-library/vue'
+import userEvent from '@testing-library/user-event'
+import { flushPromises } from '@vue/test-utils'
 import PrimeVue from 'primevue/config'
 import type { Outline } from '@shared/script'
 import type { OutlineRecord } from '@shared/schemas/studio'
-import { getOutline, saveOutline } from '@/api/outlines'
+import { saveOutline } from '@/api/outlines'
 import StudioConflictDialog from '@/components/StudioConflictDialog.vue'
+import StudioSaveStatus from '@/components/StudioSaveStatus.vue'
 import { localCopyKey, useAutosave } from '@/composables/useAutosave'
 import type { Autosave, LocalCopy } from '@/composables/useAutosave'
 import { useOutlineEditor } from '@/composables/useOutlineEditor'
 import type { OutlineEditor } from '@/composables/useOutlineEditor'
 import { outlineFor, recordFor } from '../helpers/studio-outline'
-import { jsonResponse, mockApi } from './support'
+import { api, apiPath, http, HttpResponse } from './msw'
+import './render'
 
 const CHANNEL = 1
 const OUTLINE_ID = 31
-const URL = `/api/channels/${CHANNEL}/outlines/${OUTLINE_ID}`
+const OUTLINE_URL = apiPath(`/channels/${CHANNEL}/outlines/${OUTLINE_ID}`)
 const KEY = localCopyKey(OUTLINE_ID)
 
-// The Studio's wiring of saving: the editor's outline, the real API module, and the conflict dialog.
-function mountAutosave(record: OutlineRecord) {
+interface SentSave {
+  version: number
+  outline: Outline
+}
+
+// The Studio's wiring of saving: the editor's outline, the real API module, the save status and the conflict dialog.
+function renderAutosave(record: OutlineRecord) {
   let editor!: OutlineEditor
   let autosave!: Autosave
   const Harness = defineComponent({
@@ -29,27 +38,33 @@ function mountAutosave(record: OutlineRecord) {
         outlineId: OUTLINE_ID,
         outline: editor.outline,
         save: (version, outline) => saveOutline(CHANNEL, OUTLINE_ID, { version, outline }),
-        fetchCurrent: () => getOutline(CHANNEL, OUTLINE_ID),
         replace: editor.replace,
       })
       editor.load(autosave.start(record))
       return () =>
         h('div', [
-          h('p', { 'data-testid': 'status' }, autosave.label.value),
+          h(StudioSaveStatus, {
+            status: autosave.status.value,
+            label: autosave.label.value,
+            error: autosave.lastError.value,
+            onSaveNow: () => void autosave.saveNow(),
+          }),
           h(StudioConflictDialog, {
             visible: autosave.conflict.value !== null,
             mine: autosave.conflict.value?.mine ?? null,
-            theirs: autosave.conflict.value?.theirs.outline ?? null,
-            theirsLabel: `version ${autosave.conflict.value?.theirs.version}`,
+            theirs: autosave.conflict.value?.theirs ?? null,
             onKeepMine: () => void autosave.keepMine(),
             onTakeTheirs: autosave.takeTheirs,
           }),
         ])
     },
   })
-  const wrapper = mount(Harness, { attachTo: document.body, global: { plugins: [[PrimeVue, { theme: 'none' }]] } })
-  return { wrapper, editor, autosave, status: () => wrapper.find('[data-testid="status"]').text() }
+  const view = render(Harness, { global: { plugins: [[PrimeVue, { theme: 'none' }]] } })
+  return { view, editor, autosave }
 }
+
+const status = () => screen.getByRole('status')
+const user = () => userEvent.setup({ advanceTimers: vi.advanceTimersByTime })
 
 function localCopy(): LocalCopy | null {
   const raw = localStorage.getItem(KEY)
@@ -60,32 +75,42 @@ function retext(doc: Outline, index: number, text: string): Outline {
   return { ...doc, lines: doc.lines.map((l, i) => (i === index ? { ...l, text, edited: true } : l)) }
 }
 
-/** PATCH answers with the saved outline at the next version; the bodies sent are kept. */
-function acceptSaves(startVersion = 3) {
-  const sent: { version: number; outline: Outline }[] = []
-  let version = startVersion
-  const fetchMock = mockApi({
-    [`PATCH ${URL}`]: (_url, init) => {
-      const body = JSON.parse(String(init.body)) as { version: number; outline: Outline }
+/** The server takes every save and answers with the next version; the bodies sent are kept. */
+function acceptSaves(): SentSave[] {
+  const sent: SentSave[] = []
+  api.use(
+    http.patch(OUTLINE_URL, async ({ request }) => {
+      const body = (await request.json()) as SentSave
       sent.push(body)
-      version = body.version + 1
-      return jsonResponse(200, recordFor(body.outline, { version }))
-    },
-  })
-  return { sent, fetchMock }
+      return HttpResponse.json(recordFor(body.outline, { version: body.version + 1 }))
+    }),
+  )
+  return sent
 }
 
-/** PATCH requests wait until the test answers the latest one; the bodies sent are kept. */
+/** Saves wait until the test answers the latest one; the bodies sent are kept. */
 function holdSaves() {
-  const sent: { version: number; outline: Outline }[] = []
-  let resolveLatest!: (r: Response) => void
-  mockApi({
-    [`PATCH ${URL}`]: (_url, init) => {
-      sent.push(JSON.parse(String(init.body)))
-      return new Promise<Response>((resolve) => (resolveLatest = resolve))
-    },
-  })
-  return { sent, answer: (response: Response) => resolveLatest(response) }
+  const sent: SentSave[] = []
+  let answerLatest!: (response: Response) => void
+  api.use(
+    http.patch(OUTLINE_URL, async ({ request }) => {
+      sent.push((await request.json()) as SentSave)
+      return new Promise<Response>((resolve) => (answerLatest = resolve))
+    }),
+  )
+  return { sent, answer: (response: Response) => answerLatest(response) }
+}
+
+/** Answers saves from a list, one each, in order; counts the requests. */
+function answerSavesWith(answers: (() => Response)[]): { count: number } {
+  const seen = { count: 0 }
+  api.use(
+    http.patch(OUTLINE_URL, () => {
+      seen.count++
+      return answers.shift()?.() ?? HttpResponse.json({ code: 'test', message: 'No answer left' }, { status: 418 })
+    }),
+  )
+  return seen
 }
 
 describe('useAutosave', () => {
@@ -93,24 +118,22 @@ describe('useAutosave', () => {
   beforeEach(() => {
     vi.useFakeTimers({ toFake: ['setTimeout', 'clearTimeout'] })
     localStorage.clear()
-    document.body.innerHTML = ''
     doc = outlineFor('PE01')
   })
   afterEach(() => {
     vi.useRealTimers()
-    vi.unstubAllGlobals()
   })
 
   it('should save about a second after the last edit, sending the version it read', async () => {
-    const { sent } = acceptSaves()
-    const { editor, autosave, status, wrapper } = mountAutosave(recordFor(doc, { version: 3 }))
-    expect(status()).toBe('Saved')
+    const sent = acceptSaves()
+    const { editor, autosave } = renderAutosave(recordFor(doc, { version: 3 }))
+    expect(status()).toHaveTextContent(/^Saved$/)
 
     editor.apply({ op: 'hideLine', lineId: doc.lines[3].id })
     await vi.advanceTimersByTimeAsync(600)
     editor.apply({ op: 'editLineText', lineId: doc.lines[4].id, text: 'And that gives us the 9.' })
     await vi.advanceTimersByTimeAsync(900)
-    expect(status()).toBe('Unsaved changes')
+    expect(status()).toHaveTextContent(/^Unsaved changes/)
     expect(sent).toHaveLength(0)
 
     await vi.advanceTimersByTimeAsync(200)
@@ -119,7 +142,7 @@ describe('useAutosave', () => {
     expect(sent[0].version).toBe(3)
     expect(sent[0].outline.lines[3].hidden).toBe(true)
     expect(sent[0].outline.lines[4].text).toBe('And that gives us the 9.')
-    expect(status()).toBe('Saved')
+    expect(status()).toHaveTextContent(/^Saved$/)
     expect(autosave.version.value).toBe(4)
 
     // The next save is based on the version the server just handed back.
@@ -127,197 +150,257 @@ describe('useAutosave', () => {
     await vi.advanceTimersByTimeAsync(1100)
     await flushPromises()
     expect(sent.map((b) => b.version)).toEqual([3, 4])
-    wrapper.unmount()
+  })
+
+  it('should save at once when "Save now" is pressed', async () => {
+    const sent = acceptSaves()
+    const { editor } = renderAutosave(recordFor(doc, { version: 3 }))
+    editor.apply({ op: 'hideLine', lineId: doc.lines[3].id })
+    await flushPromises()
+
+    await user().click(screen.getByRole('button', { name: 'Save now' }))
+    await flushPromises()
+    expect(sent).toHaveLength(1)
+    expect(status()).toHaveTextContent(/^Saved$/)
+    expect(screen.queryByRole('button', { name: 'Save now' })).not.toBeInTheDocument()
   })
 
   it('should re-base the local copy on our own save when edits arrive while it is on its way', async () => {
     const { sent, answer } = holdSaves()
-    const { editor, wrapper } = mountAutosave(recordFor(doc, { version: 3 }))
+    const { editor } = renderAutosave(recordFor(doc, { version: 3 }))
     editor.apply({ op: 'hideLine', lineId: doc.lines[3].id })
     await vi.advanceTimersByTimeAsync(1000)
     editor.apply({ op: 'hideLine', lineId: doc.lines[4].id })
     await flushPromises()
-    answer(jsonResponse(200, recordFor(sent[0].outline, { version: 4 })))
+    answer(HttpResponse.json(recordFor(sent[0].outline, { version: 4 })))
     await flushPromises()
     // a reload now must not take version 4 (our own save) for someone else's
     expect(localCopy()).toMatchObject({ baseVersion: 4 })
     expect(localCopy()!.outline.lines[4].hidden).toBe(true)
-    wrapper.unmount()
   })
 
   it('should retry a server error but not a refusal such as a deleted outline', async () => {
-    let answers = [jsonResponse(503, { code: 'engine-busy', message: 'Busy' }), jsonResponse(404, { code: 'not-found', message: 'Outline not found' })]
-    const fetchMock = mockApi({ [`PATCH ${URL}`]: () => answers.shift()! })
-    const { editor, status, wrapper } = mountAutosave(recordFor(doc, { version: 3 }))
+    const requests = answerSavesWith([
+      () => HttpResponse.json({ code: 'engine-busy', message: 'Busy' }, { status: 503 }),
+      () => HttpResponse.json({ code: 'not-found', message: 'Outline not found' }, { status: 404 }),
+    ])
+    const { view, editor } = renderAutosave(recordFor(doc, { version: 3 }))
     editor.apply({ op: 'hideLine', lineId: doc.lines[3].id })
     await vi.advanceTimersByTimeAsync(1000)
     await flushPromises()
-    expect(fetchMock).toHaveBeenCalledTimes(1)
+    expect(requests.count).toBe(1)
     await vi.advanceTimersByTimeAsync(10_000)
     await flushPromises()
-    expect(fetchMock).toHaveBeenCalledTimes(2)
-    expect(status()).toBe('Unsaved changes')
-    answers = []
+    expect(requests.count).toBe(2)
+    expect(status()).toHaveTextContent('Unsaved changes— Outline not found')
     await vi.advanceTimersByTimeAsync(60_000)
     await flushPromises()
-    expect(fetchMock).toHaveBeenCalledTimes(2)
+    expect(requests.count).toBe(2)
     expect(localCopy()!.outline.lines[3].hidden).toBe(true)
-    wrapper.unmount()
+    // leaving the screen still hands the edits over once, while the handlers are in place
+    view.unmount()
+    await flushPromises()
   })
 
   it('should keep a local copy until the server has the outline, showing "Saving…" meanwhile', async () => {
     const { sent, answer } = holdSaves()
-    const { editor, status, wrapper } = mountAutosave(recordFor(doc, { version: 3 }))
+    const { editor } = renderAutosave(recordFor(doc, { version: 3 }))
     editor.apply({ op: 'renameChapter', lineId: doc.chapters[0].lineId, title: 'How it works' })
     await flushPromises()
     expect(localCopy()).toMatchObject({ baseVersion: 3 })
     expect(localCopy()!.outline.chapters[0].title).toBe('How it works')
 
     await vi.advanceTimersByTimeAsync(1000)
-    expect(status()).toBe('Saving…')
+    expect(status()).toHaveTextContent(/^Saving…$/)
     expect(localCopy()).not.toBeNull()
 
-    answer(jsonResponse(200, recordFor(sent[0].outline, { version: 4 })))
+    answer(HttpResponse.json(recordFor(sent[0].outline, { version: 4 })))
     await flushPromises()
-    expect(status()).toBe('Saved')
+    expect(status()).toHaveTextContent(/^Saved$/)
     expect(localCopy()).toBeNull()
-    wrapper.unmount()
   })
 
   it('should keep the local copy and try again when a save fails', async () => {
     let failing = true
     const sent: number[] = []
-    mockApi({
-      [`PATCH ${URL}`]: (_url, init) => {
-        const body = JSON.parse(String(init.body)) as { version: number; outline: Outline }
+    api.use(
+      http.patch(OUTLINE_URL, async ({ request }) => {
+        const body = (await request.json()) as SentSave
         sent.push(body.version)
-        return failing ? jsonResponse(503, { code: 'unavailable', message: 'Try again soon.' }) : jsonResponse(200, recordFor(body.outline, { version: 4 }))
-      },
-    })
-    const { editor, autosave, status, wrapper } = mountAutosave(recordFor(doc, { version: 3 }))
+        return failing
+          ? HttpResponse.json({ code: 'unavailable', message: 'Try again soon.' }, { status: 503 })
+          : HttpResponse.json(recordFor(body.outline, { version: 4 }))
+      }),
+    )
+    const { editor } = renderAutosave(recordFor(doc, { version: 3 }))
     editor.apply({ op: 'setPace', pace: 175 })
     await vi.advanceTimersByTimeAsync(1000)
     await flushPromises()
-    expect(status()).toBe('Unsaved changes')
-    expect(autosave.lastError.value).toBe('Try again soon.')
+    expect(status()).toHaveTextContent('Unsaved changes— Try again soon.')
     expect(localCopy()!.outline.pace).toBe(175)
 
     failing = false
     await vi.advanceTimersByTimeAsync(5000)
     await flushPromises()
     expect(sent).toEqual([3, 3])
-    expect(status()).toBe('Saved')
+    expect(status()).toHaveTextContent(/^Saved$/)
     expect(localCopy()).toBeNull()
-    wrapper.unmount()
+  })
+
+  it('should ask before the tab closes while edits are not saved, and not once they are', async () => {
+    const { answer, sent } = holdSaves()
+    const { editor } = renderAutosave(recordFor(doc, { version: 3 }))
+    const closing = () => {
+      const event = new Event('beforeunload', { cancelable: true })
+      window.dispatchEvent(event)
+      return event.defaultPrevented
+    }
+    expect(closing()).toBe(false)
+
+    editor.apply({ op: 'hideLine', lineId: doc.lines[3].id })
+    await flushPromises()
+    expect(closing()).toBe(true)
+    await vi.advanceTimersByTimeAsync(1000)
+    expect(closing()).toBe(true)
+
+    answer(HttpResponse.json(recordFor(sent[0].outline, { version: 4 })))
+    await flushPromises()
+    expect(closing()).toBe(false)
+  })
+
+  it('should send a pending save when the screen goes away instead of dropping it', async () => {
+    const sent = acceptSaves()
+    const { view, editor } = renderAutosave(recordFor(doc, { version: 3 }))
+    editor.apply({ op: 'hideLine', lineId: doc.lines[3].id })
+    await flushPromises()
+    expect(sent).toHaveLength(0)
+
+    view.unmount()
+    await flushPromises()
+    expect(sent).toHaveLength(1)
+    expect(sent[0].outline.lines[3].hidden).toBe(true)
+    expect(localCopy()).toBeNull()
   })
 
   it('should put back a local copy newer than the server copy and offer to discard it', async () => {
-    const { sent } = acceptSaves()
+    const sent = acceptSaves()
     const mine = retext(doc, 2, 'Words I typed before the browser closed.')
     localStorage.setItem(KEY, JSON.stringify({ baseVersion: 3, savedAt: '2025-03-01T10:05:00.000Z', outline: mine } satisfies LocalCopy))
 
-    const { editor, autosave, status, wrapper } = mountAutosave(recordFor(doc, { version: 3 }))
+    const { editor, autosave } = renderAutosave(recordFor(doc, { version: 3 }))
     expect(editor.outline.value!.lines[2].text).toBe('Words I typed before the browser closed.')
     expect(autosave.restoredFrom.value).toBe('2025-03-01T10:05:00.000Z')
-    expect(status()).toBe('Unsaved changes')
+    expect(status()).toHaveTextContent(/^Unsaved changes/)
 
     autosave.discardRestored()
     await flushPromises()
     expect(editor.outline.value).toEqual(doc)
     expect(autosave.restoredFrom.value).toBeNull()
     expect(localCopy()).toBeNull()
-    expect(status()).toBe('Saved')
+    expect(status()).toHaveTextContent(/^Saved$/)
     await vi.advanceTimersByTimeAsync(1500)
     expect(sent).toHaveLength(0)
-    wrapper.unmount()
   })
 
   it('should drop a local copy that matches the server copy', () => {
     localStorage.setItem(KEY, JSON.stringify({ baseVersion: 3, savedAt: '2025-03-01T10:05:00.000Z', outline: doc } satisfies LocalCopy))
-    const { autosave, status, wrapper } = mountAutosave(recordFor(doc, { version: 3 }))
+    const { autosave } = renderAutosave(recordFor(doc, { version: 3 }))
     expect(autosave.restoredFrom.value).toBeNull()
-    expect(status()).toBe('Saved')
+    expect(status()).toHaveTextContent(/^Saved$/)
     expect(localCopy()).toBeNull()
-    wrapper.unmount()
   })
 
   it('should open the conflict at once when the local copy is based on an older version', async () => {
-    acceptSaves(5)
+    acceptSaves()
     const mine = retext(doc, 2, 'My words from last night.')
     localStorage.setItem(KEY, JSON.stringify({ baseVersion: 2, savedAt: '2025-03-01T09:00:00.000Z', outline: mine } satisfies LocalCopy))
     const theirs = retext(doc, 2, 'The editor changed this line.')
-    const { autosave, status, wrapper } = mountAutosave(recordFor(theirs, { version: 5 }))
+    renderAutosave(recordFor(theirs, { version: 5 }))
     await flushPromises()
-    expect(status()).toBe('Conflict')
-    expect(autosave.conflict.value?.mine.lines[2].text).toBe('My words from last night.')
-    expect(document.body.textContent).toContain('The editor changed this line.')
-    wrapper.unmount()
+
+    expect(status()).toHaveTextContent(/^Conflict$/)
+    const dialog = screen.getByRole('dialog', { name: 'Someone else saved this outline' })
+    const row = within(dialog).getByRole('row', { name: /^Line 3 / })
+    const [mineCell, theirsCell, ...more] = within(row).getAllByRole('cell')
+    expect(more).toHaveLength(0)
+    expect(mineCell).toHaveTextContent('My words from last night.')
+    expect(theirsCell).toHaveTextContent('The editor changed this line.')
   })
 
-  it('should turn a 409 into a conflict that shows both versions, and save mine over the newer version', async () => {
-    const theirsDoc = retext(doc, 5, 'The editor rewrote this line.')
-    const theirs = recordFor(theirsDoc, { version: 4 })
-    const sent: { version: number; outline: Outline }[] = []
-    mockApi({
-      [`PATCH ${URL}`]: (_url, init) => {
-        const body = JSON.parse(String(init.body)) as { version: number; outline: Outline }
+  it('should turn a stale save into a conflict that shows both versions, and save mine over the newer version', async () => {
+    const theirs = recordFor(retext(doc, 5, 'The editor rewrote this line.'), { version: 4 })
+    const sent: SentSave[] = []
+    api.use(
+      http.patch(OUTLINE_URL, async ({ request }) => {
+        const body = (await request.json()) as SentSave
         sent.push(body)
-        if (body.version === 3) return jsonResponse(409, { code: 'stale', message: 'Someone saved first.', details: { current: theirs } })
-        return jsonResponse(200, recordFor(body.outline, { version: body.version + 1 }))
-      },
-      [`GET ${URL}`]: jsonResponse(200, theirs),
-    })
-    const { editor, autosave, status, wrapper } = mountAutosave(recordFor(doc, { version: 3 }))
+        // the server's 409 carries its copy under details.current (StaleBody in shared/schemas/studio.ts)
+        if (body.version === 3) return HttpResponse.json({ code: 'stale', message: 'Someone saved first.', details: { current: theirs } }, { status: 409 })
+        return HttpResponse.json(recordFor(body.outline, { version: body.version + 1 }))
+      }),
+    )
+    const { editor, autosave } = renderAutosave(recordFor(doc, { version: 3 }))
     editor.apply({ op: 'editLineText', lineId: doc.lines[5].id, text: 'My own take on this line.' })
     await vi.advanceTimersByTimeAsync(1000)
     await flushPromises()
 
-    expect(status()).toBe('Conflict')
-    const dialog = document.body.querySelector('[role="dialog"]')!
-    expect(dialog.textContent).toContain('Someone else saved this outline')
-    const row = Array.from(dialog.querySelectorAll('tbody tr')).find((tr) => tr.textContent?.includes('Line 6'))!
-    const cells = Array.from(row.querySelectorAll('td')).map((td) => td.textContent)
-    expect(cells).toHaveLength(2)
-    expect(cells[0]).toContain('My own take on this line.')
-    expect(cells[1]).toContain('The editor rewrote this line.')
+    expect(status()).toHaveTextContent(/^Conflict$/)
+    const dialog = screen.getByRole('dialog', { name: 'Someone else saved this outline' })
+    expect(dialog).toHaveTextContent(/a newer copy was saved \(version 4, saved .+\)/)
+    const row = within(dialog).getByRole('row', { name: /^Line 6 / })
+    const [mineCell, theirsCell, ...more] = within(row).getAllByRole('cell')
+    expect(more).toHaveLength(0)
+    expect(mineCell).toHaveTextContent('My own take on this line.')
+    expect(theirsCell).toHaveTextContent('The editor rewrote this line.')
     // Nothing is saved behind the person's back while the conflict is open.
     await vi.advanceTimersByTimeAsync(10_000)
     expect(sent).toHaveLength(1)
 
-    const keep = Array.from(dialog.querySelectorAll('button')).find((b) => b.textContent?.includes('Keep my version'))!
-    keep.click()
+    await user().click(within(dialog).getByRole('button', { name: 'Keep my version' }))
     await flushPromises()
     expect(sent).toHaveLength(2)
     expect(sent[1].version).toBe(4)
     expect(sent[1].outline.lines[5].text).toBe('My own take on this line.')
-    expect(status()).toBe('Saved')
+    expect(status()).toHaveTextContent(/^Saved$/)
     expect(autosave.version.value).toBe(5)
     expect(localCopy()).toBeNull()
-    wrapper.unmount()
   })
 
   it("should take the server's version when asked, dropping the local copy", async () => {
-    const theirsDoc = retext(doc, 5, 'The editor rewrote this line.')
-    const theirs = recordFor(theirsDoc, { version: 4 })
-    mockApi({
-      // No copy in the body: the client fetches it.
-      [`PATCH ${URL}`]: jsonResponse(409, { code: 'stale', message: 'Someone saved first.' }),
-      [`GET ${URL}`]: jsonResponse(200, theirs),
-    })
-    const { editor, autosave, status, wrapper } = mountAutosave(recordFor(doc, { version: 3 }))
+    const theirs = recordFor(retext(doc, 5, 'The editor rewrote this line.'), { version: 4 })
+    api.use(
+      // No copy in the body: the API layer fetches it.
+      http.patch(OUTLINE_URL, () => HttpResponse.json({ code: 'stale', message: 'Someone saved first.' }, { status: 409 })),
+      http.get(OUTLINE_URL, () => HttpResponse.json(theirs)),
+    )
+    const { editor, autosave } = renderAutosave(recordFor(doc, { version: 3 }))
     editor.apply({ op: 'editLineText', lineId: doc.lines[5].id, text: 'My own take on this line.' })
     await vi.advanceTimersByTimeAsync(1000)
     await flushPromises()
-    expect(status()).toBe('Conflict')
+    expect(status()).toHaveTextContent(/^Conflict$/)
 
-    const dialog = document.body.querySelector('[role="dialog"]')!
-    const take = Array.from(dialog.querySelectorAll('button')).find((b) => b.textContent?.includes('Use the saved version'))!
-    take.click()
+    await user().click(screen.getByRole('button', { name: 'Use the saved version' }))
     await flushPromises()
+    expect(screen.queryByRole('dialog')).not.toBeInTheDocument()
     expect(editor.outline.value!.lines[5].text).toBe('The editor rewrote this line.')
     expect(autosave.version.value).toBe(4)
-    expect(status()).toBe('Saved')
+    expect(status()).toHaveTextContent(/^Saved$/)
     expect(localCopy()).toBeNull()
-    wrapper.unmount()
+  })
+
+  it('should say so and keep the edits when the newer copy behind a stale save cannot be loaded', async () => {
+    api.use(
+      http.patch(OUTLINE_URL, () => HttpResponse.json({ code: 'stale', message: 'Someone saved first.' }, { status: 409 })),
+      http.get(OUTLINE_URL, () => HttpResponse.error()),
+    )
+    const { view, editor } = renderAutosave(recordFor(doc, { version: 3 }))
+    editor.apply({ op: 'hideLine', lineId: doc.lines[3].id })
+    await vi.advanceTimersByTimeAsync(1000)
+    await flushPromises()
+    expect(status()).toHaveTextContent("Unsaved changes— Can't reach Gridcue")
+    expect(screen.queryByRole('dialog')).not.toBeInTheDocument()
+    expect(localCopy()!.outline.lines[3].hidden).toBe(true)
+    view.unmount()
+    await flushPromises()
   })
 })
