@@ -1,21 +1,28 @@
-import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest'
-import { enableAutoUnmount, flushPromises } from '@vue/test-utils'
+import { afterEach, beforeEach, describe, expect, it, onTestFinished, vi } from 'vitest'
+import { screen, within } from '@testing-library/vue'
+import userEvent from '@testing-library/user-event'
 import { defineComponent, h } from 'vue'
 import { RouterView } from 'vue-router'
 import type { RouteRecordRaw } from 'vue-router'
-import type { PuzzleRecord } from '@shared/schemas/studio'
+import type { Membership } from '@shared/schemas/auth'
+import type { OutlineSummary, PuzzleRecord } from '@shared/schemas/studio'
 import { routes } from '@/router'
-import { createHarness, jsonResponse, membership, mockApi, mountAt, saveSession, sessionFixture } from './support'
-
-enableAutoUnmount(afterEach)
+import classic from '../fixtures/classic-puzzles.json'
+import { outlineFor, recordFor } from '../helpers/studio-outline'
+import { api, apiPath, http, HttpResponse } from './msw'
+import { renderAt, settle } from './render'
+import { createHarness, membership, saveSession, sessionFixture } from './support'
 
 const Shell = defineComponent({ render: () => h(RouterView) })
-const Blank = defineComponent({ render: () => h('p', 'studio') })
+const StandIn = defineComponent({ render: () => h('p', 'another screen') })
 
-// A stand-in for the Studio screen (tested on its own), so navigating there stays cheap.
-const withStudio: RouteRecordRaw[] = routes.map((r): RouteRecordRaw => (r.name === 'studio' ? { path: r.path, name: r.name, component: Blank } : r))
+// Stand-ins for the screens this one leads to (each tested on its own): no lazy loading or requests of theirs.
+const withStandIns: RouteRecordRaw[] = routes.map((r): RouteRecordRaw => (r.name === 'studio' || r.name === 'library' ? { path: r.path, name: r.name, component: StandIn } : r))
 
-const UNIQUE = '53..7....6..195....98....6.8...6...34..8.3..17...2...6.6....28....419..5....8..79'
+// Project Euler problem 96, grid 01 (source named in tests/fixtures/classic-puzzles.json): one solution.
+const UNIQUE = classic.puzzles.find((p) => p.id === 'PE01')!.givens
+/** The live check waits this long after the last edit (usePuzzleCheck's default). */
+const CHECK_DELAY = 250
 
 function recordFixture(overrides: Partial<PuzzleRecord> = {}): PuzzleRecord {
   return {
@@ -37,308 +44,469 @@ function recordFixture(overrides: Partial<PuzzleRecord> = {}): PuzzleRecord {
   }
 }
 
-const me = jsonResponse(200, { user: sessionFixture().user, memberships: [membership(1, 'presenter')] })
+const takeOne: OutlineSummary = { id: 9, puzzleId: 42, name: 'Take 1', status: 'solved', stepCount: 61, totalMs: 754_000, version: 2, updatedAt: '2025-05-01T10:00:00.000Z' }
 
-async function open(path: string, api: Parameters<typeof mockApi>[0]) {
-  const fetchMock = mockApi({ 'GET /api/auth/me': me, ...api })
-  const mounted = await mountAt(Shell, path, createHarness(withStudio))
-  await flushPromises()
-  const { wrapper } = mounted
-  const field = (label: string) => {
-    const id = wrapper.findAll('label').find((l) => l.text() === label)!.attributes('for')
-    return wrapper.find(`#${id}`)
+/** The signed-in user's answer from the API, with a role in channel 1. */
+function signedInAs(role: Membership['role']) {
+  return http.get(apiPath('/auth/me'), () => HttpResponse.json({ user: sessionFixture().user, memberships: [membership(1, role)] }))
+}
+
+/** An existing puzzle and its takes, as the API answers them. */
+function existingPuzzle(record = recordFixture(), outlines: OutlineSummary[] = []) {
+  return [
+    http.get(apiPath(`/channels/1/puzzles/${record.id}`), () => HttpResponse.json(record)),
+    http.get(apiPath(`/channels/1/puzzles/${record.id}/outlines`), () => HttpResponse.json(outlines)),
+  ]
+}
+
+/** Stands in for the browser's confirm(): answers in turn with `answers` (then yes), and records the questions. */
+function answerConfirm(...answers: boolean[]) {
+  const confirm = vi.fn((_question?: string) => answers.shift() ?? true)
+  vi.stubGlobal('confirm', confirm)
+  return confirm
+}
+
+/** Every request the screen sends from now on, as "METHOD /path". */
+function requestLog(): string[] {
+  const log: string[] = []
+  const listener = ({ request }: { request: Request }) => void log.push(`${request.method} ${new URL(request.url).pathname}`)
+  api.events.on('request:start', listener)
+  onTestFinished(() => api.events.removeListener('request:start', listener))
+  return log
+}
+
+async function open(path: string, role: Membership['role'] = 'presenter') {
+  api.use(signedInAs(role))
+  const user = userEvent.setup({ advanceTimers: vi.advanceTimersByTime })
+  const rendered = await renderAt(Shell, path, { harness: createHarness(withStandIns) })
+  const grid = () => screen.getByRole('grid', { name: /^Puzzle grid/ })
+  const cell = (name: string) => within(grid()).getByRole('gridcell', { name: new RegExp(`^${name},`) })
+  const problemCells = () => within(grid()).queryAllByRole('gridcell', { name: /, problem$/ }).map((c) => c.getAttribute('aria-label')!.split(',')[0])
+  const button = (name: string | RegExp) => screen.getByRole('button', { name })
+  /** Clicks a cell and types on the grid, as a presenter enters givens. */
+  async function typeAt(name: string, keys: string) {
+    await user.click(cell(name))
+    await user.keyboard(keys)
   }
-  const button = (name: string) => wrapper.findAll('button').find((b) => b.text() === name)!
-  const grid = wrapper.find('[role="grid"]')
-  const key = (k: string) => grid.trigger('keydown', { key: k })
-  return { ...mounted, fetchMock, field, button, grid, key }
+  return { ...rendered, user, grid, cell, problemCells, button, typeAt }
 }
 
-const settle = async () => {
-  await new Promise((resolve) => setTimeout(resolve, 320))
-  await flushPromises()
-}
-
-function lastCall(fetchMock: ReturnType<typeof mockApi>, method: string) {
-  const call = fetchMock.mock.calls.filter(([, init]) => (init?.method ?? 'GET') === method).at(-1)!
-  const raw = call[1]?.body
-  return { url: String(call[0]), body: raw === undefined || raw === null ? undefined : JSON.parse(String(raw)) }
-}
-
-// The first test also pays for loading the screen's modules; the shared test machine can be slow.
-describe('PuzzleView', { timeout: 20_000 }, () => {
+describe('PuzzleView', () => {
   beforeEach(() => {
     localStorage.clear()
     saveSession()
+    vi.useFakeTimers()
   })
   afterEach(() => {
-    vi.unstubAllGlobals()
+    vi.useRealTimers()
     vi.restoreAllMocks()
-    document.body.innerHTML = ''
+    vi.unstubAllGlobals()
   })
 
-  it('should show the fields, the permission reminder and "Several solutions" for an almost empty grid', async () => {
-    const { wrapper, grid, key, button } = await open('/channels/1/puzzles/new', {})
-    expect(wrapper.find('h1').text()).toBe('New puzzle')
-    for (const label of ['Title', 'Setter', 'Link to the puzzle', 'First published', 'Notes']) {
-      expect(wrapper.findAll('label').some((l) => l.text() === label)).toBe(true)
+  it('should show the fields and the permission reminder, and point at no cell before anything is entered', async () => {
+    const { problemCells } = await open('/channels/1/puzzles/new')
+
+    expect(screen.getByRole('heading', { level: 1 })).toHaveTextContent('New puzzle')
+    for (const label of ['Title', 'Setter', 'Link to the puzzle', 'First published', 'Notes', 'Givens as text']) {
+      expect(screen.getByLabelText(label)).toBeEnabled()
     }
-    expect(wrapper.text()).toContain("only with its setter's permission")
-    // an empty grid has many solutions, but nothing is marked as a problem before anything is entered
-    expect(grid.findAll('[aria-label$=", problem"]')).toHaveLength(0)
-
-    await grid.trigger('focus')
-    await key('4')
-    await settle()
-    expect(wrapper.find('[role="status"]').text()).toContain('Several solutions')
-    expect(wrapper.text()).toContain('The puzzle has more than one solution')
-    expect(grid.findAll('[aria-label$=", problem"]')).toHaveLength(2)
-    expect(button('Find the path').attributes('disabled')).toBeDefined()
+    expect(screen.getByText(/only with its setter's permission/)).toBeVisible()
+    // an empty grid has many solutions, but nothing is pointed at before anything is entered
+    expect(problemCells()).toEqual([])
   })
 
-  it("should show the engine's message and mark the cells for a duplicate given", async () => {
-    const { wrapper, grid, key } = await open('/channels/1/puzzles/new', {})
-    await grid.trigger('focus')
-    await key('5')
-    await key('ArrowRight')
-    await key('5')
-    await settle()
+  it('should check the grid a quarter second after the last edit and then say "Several solutions"', async () => {
+    const { typeAt, problemCells, button } = await open('/channels/1/puzzles/new')
+    const check = within(screen.getByRole('region', { name: 'Check' }))
 
-    expect(wrapper.find('[role="status"]').text()).toContain('Needs fixing')
-    expect(wrapper.text()).toContain('Row 1 has the given 5 more than once: r1c1, r1c2.')
-    expect(wrapper.find('[data-cell="0"]').classes()).toContain('grid-board__cell--error')
-    expect(wrapper.find('[data-cell="1"]').classes()).toContain('grid-board__cell--error')
+    await typeAt('r1c1', '4')
+    expect(button('Find the path')).toHaveAccessibleDescription('Checking the grid…')
+    await vi.advanceTimersByTimeAsync(CHECK_DELAY - 1)
+    expect(check.getByRole('status')).toHaveTextContent('checking…')
+
+    await vi.advanceTimersByTimeAsync(1)
+    expect(check.getByRole('status')).toHaveTextContent('Several solutions')
+    expect(check.getByRole('listitem')).toHaveTextContent('The puzzle has more than one solution')
+    expect(problemCells()).toHaveLength(2)
+    expect(button('Find the path')).toBeDisabled()
+    expect(button('Find the path')).toHaveAccessibleDescription('Gridcue finds the path once the puzzle has exactly one solution.')
   })
 
-  it('should block saving a malformed grid with the message and not call the API', async () => {
-    const { wrapper, field, button, grid, key, fetchMock } = await open('/channels/1/puzzles/new', {})
-    await field('Title').setValue('Twin fives')
-    await grid.trigger('focus')
-    await key('5')
-    await key('ArrowRight')
-    await key('5')
-    await button('Save').trigger('click')
-    await flushPromises()
+  it("should show the engine's message and point at both cells of a duplicate given", async () => {
+    const { typeAt, problemCells } = await open('/channels/1/puzzles/new')
+    await typeAt('r1c1', '5{ArrowRight}5')
+    await vi.advanceTimersByTimeAsync(CHECK_DELAY)
 
-    expect(wrapper.text()).toContain('Fix the grid before saving: Row 1 has the given 5 more than once')
-    expect(fetchMock.mock.calls.some(([, init]) => init?.method === 'POST')).toBe(false)
+    const check = within(screen.getByRole('region', { name: 'Check' }))
+    expect(check.getByRole('status')).toHaveTextContent('Needs fixing')
+    expect(check.getByText('Row 1 has the given 5 more than once: r1c1, r1c2.')).toBeVisible()
+    expect(problemCells()).toEqual(['r1c1', 'r1c2'])
   })
 
-  it('should save a new draft that is not unique yet with the right body and move to its address', async () => {
+  it('should block saving a malformed grid with the message and send nothing', async () => {
+    const { user, typeAt, button } = await open('/channels/1/puzzles/new')
+    const sent = requestLog()
+    await user.type(screen.getByLabelText('Title'), 'Twin fives')
+    await typeAt('r1c1', '5{ArrowRight}5')
+    await user.click(button('Save'))
+
+    expect(screen.getByText(/^Fix the grid before saving: Row 1 has the given 5 more than once/)).toBeVisible()
+    expect(sent).toEqual([])
+  })
+
+  it('should show what a field needs beside it and not save', async () => {
+    const { user, button } = await open('/channels/1/puzzles/new')
+    const sent = requestLog()
+    await user.type(screen.getByLabelText('Title'), 'Morning climb')
+    await user.type(screen.getByLabelText('Link to the puzzle'), 'javascript:alert(1)')
+    await user.click(button('Save'))
+
+    expect(screen.getByText('Some details need fixing before saving.')).toBeVisible()
+    expect(screen.getByLabelText('Link to the puzzle')).toHaveAccessibleDescription('Link must be a web address (https://…)')
+    expect(screen.getByLabelText('Link to the puzzle')).toBeInvalid()
+    expect(sent).toEqual([])
+  })
+
+  it('should save a new draft with the right body, say it is a draft and move to its address', async () => {
     const saved = recordFixture({ check: 'multiple-solutions', givens: '7'.padEnd(81, '.'), thermometers: [['r2c2', 'r2c3', 'r3c4']], version: 1 })
-    const { wrapper, field, button, grid, key, fetchMock, router } = await open('/channels/1/puzzles/new', {
-      'POST /api/channels/1/puzzles': jsonResponse(201, saved),
-      'GET /api/channels/1/puzzles/42/outlines': jsonResponse(200, []),
-    })
-    await field('Title').setValue('  Morning climb ')
-    await field('Setter').setValue('Rosa Ilves')
-    await field('Link to the puzzle').setValue('https://example.test/puzzles/morning-climb')
-    await field('First published').setValue('2025-04-28')
-    await grid.trigger('focus')
-    await key('7')
-    // Draw a thermometer r2c2 → r2c3 → r3c4 by dragging.
-    const cell = (c: number) => wrapper.find(`[data-cell="${c}"]`)
-    await cell(10).trigger('pointerdown', { button: 0, pointerId: 1 })
-    await cell(11).trigger('pointermove', { pointerId: 1 })
-    await cell(21).trigger('pointermove', { pointerId: 1 })
-    await cell(21).trigger('pointerup', { pointerId: 1 })
+    const bodies: unknown[] = []
+    api.use(
+      http.post(apiPath('/channels/1/puzzles'), async ({ request }) => {
+        bodies.push(await request.json())
+        return HttpResponse.json(saved, { status: 201 })
+      }),
+      ...existingPuzzle(saved),
+    )
+    const { user, typeAt, cell, button, router } = await open('/channels/1/puzzles/new')
+    await user.type(screen.getByLabelText('Title'), '  Morning climb ')
+    await user.type(screen.getByLabelText('Setter'), 'Rosa Ilves')
+    await user.type(screen.getByLabelText('Link to the puzzle'), 'https://example.test/puzzles/morning-climb')
+    await user.type(screen.getByLabelText('First published'), '2025-04-28')
+    await typeAt('r1c1', '7')
+    // A thermometer dragged from its bulb r2c2 through r2c3 to r3c4.
+    await user.pointer([{ keys: '[MouseLeft>]', target: cell('r2c2') }, { target: cell('r2c3') }, { target: cell('r3c4') }, { keys: '[/MouseLeft]', target: cell('r3c4') }])
+    expect(screen.getByRole('button', { name: /r2c2 → r2c3 → r3c4/ })).toBeVisible()
 
-    await button('Save').trigger('click')
-    await flushPromises()
+    await user.click(button('Save'))
+    await settle()
 
-    const { url, body } = lastCall(fetchMock, 'POST')
-    expect(url).toBe('/api/channels/1/puzzles')
-    expect(body).toEqual({
-      title: 'Morning climb',
-      author: 'Rosa Ilves',
-      givens: '7'.padEnd(81, '.'),
-      thermometers: [['r2c2', 'r2c3', 'r3c4']],
-      link: 'https://example.test/puzzles/morning-climb',
-      publishedOn: '2025-04-28',
-      notes: '',
-    })
+    expect(bodies).toEqual([
+      {
+        title: 'Morning climb',
+        author: 'Rosa Ilves',
+        givens: '7'.padEnd(81, '.'),
+        thermometers: [['r2c2', 'r2c3', 'r3c4']],
+        link: 'https://example.test/puzzles/morning-climb',
+        publishedOn: '2025-04-28',
+        notes: '',
+      },
+    ])
     expect(router.currentRoute.value.fullPath).toBe('/channels/1/puzzles/42')
-    expect(wrapper.text()).toContain('Saved as a draft')
-    expect(wrapper.text()).toContain('All changes saved · version 1')
+    expect(screen.getByText(/^Saved as a draft/)).toBeVisible()
+    expect(screen.getByText('All changes saved · version 1')).toBeVisible()
   })
 
   it('should send the version it read when saving an existing puzzle', async () => {
-    const { field, button, fetchMock } = await open('/channels/1/puzzles/42', {
-      'GET /api/channels/1/puzzles/42': jsonResponse(200, recordFixture()),
-      'GET /api/channels/1/puzzles/42/outlines': jsonResponse(200, []),
-      'PUT /api/channels/1/puzzles/42': (_url, init) => jsonResponse(200, { ...recordFixture(), ...JSON.parse(String(init.body)), version: 4 }),
-    })
-    expect((field('Title').element as HTMLInputElement).value).toBe('Morning climb')
+    const bodies: Record<string, unknown>[] = []
+    api.use(
+      ...existingPuzzle(),
+      http.put(apiPath('/channels/1/puzzles/42'), async ({ request }) => {
+        const body = (await request.json()) as Record<string, unknown>
+        bodies.push(body)
+        return HttpResponse.json({ ...recordFixture(), ...body, version: 4 })
+      }),
+    )
+    const { user, button } = await open('/channels/1/puzzles/42')
+    const title = screen.getByLabelText('Title')
+    expect(title).toHaveValue('Morning climb')
 
-    await field('Title').setValue('Morning climb (revised)')
-    await button('Save').trigger('click')
-    await flushPromises()
+    await user.clear(title)
+    await user.type(title, 'Morning climb (revised)')
+    expect(screen.getByText('Unsaved changes')).toBeVisible()
+    await user.click(button('Save'))
+    await settle()
 
-    const { url, body } = lastCall(fetchMock, 'PUT')
-    expect(url).toBe('/api/channels/1/puzzles/42')
-    expect(body).toMatchObject({ title: 'Morning climb (revised)', givens: UNIQUE, version: 3 })
+    expect(bodies).toHaveLength(1)
+    expect(bodies[0]).toMatchObject({ title: 'Morning climb (revised)', givens: UNIQUE, version: 3 })
+    expect(screen.getByText('Saved.')).toBeVisible()
+    expect(screen.getByText('All changes saved · version 4')).toBeVisible()
   })
 
-  it('should show both versions on a 409 and save over the newer one when the user keeps theirs', async () => {
+  describe('when someone else saved first (409)', () => {
     const theirs = recordFixture({ title: 'Morning climb — final', version: 5, updatedAt: '2025-05-02T09:30:00.000Z' })
-    let puts = 0
-    const { wrapper, field, button, fetchMock } = await open('/channels/1/puzzles/42', {
-      'GET /api/channels/1/puzzles/42': () => jsonResponse(200, puts ? theirs : recordFixture()),
-      'GET /api/channels/1/puzzles/42/outlines': jsonResponse(200, []),
-      'PUT /api/channels/1/puzzles/42': (_url, init) => {
-        puts++
-        const body = JSON.parse(String(init.body))
-        return body.version === 5
-          ? jsonResponse(200, { ...theirs, ...body, version: 6 })
-          : jsonResponse(409, { code: 'stale', message: 'Someone else saved this puzzle first.', details: { current: theirs } })
-      },
+
+    /** PUT answers 409 with their copy unless the save is over their version. */
+    function staleUntilOverTheirs() {
+      const bodies: Record<string, unknown>[] = []
+      api.use(
+        ...existingPuzzle(),
+        http.put(apiPath('/channels/1/puzzles/42'), async ({ request }) => {
+          const body = (await request.json()) as Record<string, unknown>
+          bodies.push(body)
+          return body.version === theirs.version
+            ? HttpResponse.json({ ...theirs, ...body, version: 6 })
+            : HttpResponse.json({ code: 'stale', message: 'Someone else saved this puzzle first.', details: { current: theirs } }, { status: 409 })
+        }),
+      )
+      return bodies
+    }
+
+    async function saveOverTheirs() {
+      const screenParts = await open('/channels/1/puzzles/42')
+      const title = screen.getByLabelText('Title')
+      await screenParts.user.clear(title)
+      await screenParts.user.type(title, 'Morning climb (mine)')
+      await screenParts.user.click(screenParts.button('Save'))
+      await settle()
+      return { ...screenParts, title, dialog: screen.getByRole('dialog', { name: 'Someone else saved this puzzle' }) }
+    }
+
+    it('should show both versions side by side and save over the newer one when the user keeps theirs', async () => {
+      const bodies = staleUntilOverTheirs()
+      const { user, title, dialog } = await saveOverTheirs()
+
+      const titles = within(within(dialog).getByRole('row', { name: /^Title/ })).getAllByRole('cell')
+      expect(titles.map((c) => c.textContent)).toEqual(['Morning climb (mine)', 'Morning climb — final'])
+      expect(within(dialog).getByRole('grid', { name: 'Your grid' })).toBeVisible()
+      expect(within(dialog).getByRole('grid', { name: 'Saved grid' })).toBeVisible()
+      // Still what the user typed, whatever they choose next.
+      expect(title).toHaveValue('Morning climb (mine)')
+
+      await user.click(within(dialog).getByRole('button', { name: 'Keep mine and save' }))
+      await settle()
+
+      expect(bodies.map((b) => [b.title, b.version])).toEqual([
+        ['Morning climb (mine)', 3],
+        ['Morning climb (mine)', 5],
+      ])
+      expect(screen.getByText('All changes saved · version 6')).toBeVisible()
     })
-    await field('Title').setValue('Morning climb (mine)')
-    await button('Save').trigger('click')
-    await flushPromises()
 
-    const dialog = document.body.querySelector('[role="dialog"]')!
-    expect(dialog).not.toBeNull()
-    expect(dialog.textContent).toContain('Someone else saved this puzzle')
-    expect(dialog.textContent).toContain('Morning climb (mine)')
-    expect(dialog.textContent).toContain('Morning climb — final')
-    expect(dialog.querySelectorAll('[role="grid"]')).toHaveLength(2)
-    // Still what the user typed, whatever they choose next.
-    expect((field('Title').element as HTMLInputElement).value).toBe('Morning climb (mine)')
+    it('should load the saved version on request and keep the typed edits to bring back', async () => {
+      const bodies = staleUntilOverTheirs()
+      const { user, title, dialog } = await saveOverTheirs()
 
-    const keep = [...dialog.querySelectorAll('button')].find((b) => b.textContent?.trim() === 'Keep mine and save')!
-    keep.click()
-    await flushPromises()
+      await user.click(within(dialog).getByRole('button', { name: 'Use the saved version' }))
+      expect(title).toHaveValue('Morning climb — final')
+      expect(screen.getByText('All changes saved · version 5')).toBeVisible()
 
-    const { body } = lastCall(fetchMock, 'PUT')
-    expect(body).toMatchObject({ title: 'Morning climb (mine)', version: 5 })
-    expect(wrapper.text()).toContain('version 6')
+      await user.click(screen.getByRole('button', { name: 'Bring back my edits' }))
+      expect(title).toHaveValue('Morning climb (mine)')
+      expect(screen.getByText('Unsaved changes')).toBeVisible()
+      expect(bodies).toHaveLength(1)
+    })
   })
 
-  it('should load the saved version on request and keep the typed edits to bring back', async () => {
-    const theirs = recordFixture({ title: 'Morning climb — final', version: 5 })
-    const { wrapper, field, button } = await open('/channels/1/puzzles/42', {
-      'GET /api/channels/1/puzzles/42': jsonResponse(200, recordFixture()),
-      'GET /api/channels/1/puzzles/42/outlines': jsonResponse(200, []),
-      'PUT /api/channels/1/puzzles/42': jsonResponse(409, { code: 'stale', message: 'Stale', details: { current: theirs } }),
-    })
-    await field('Title').setValue('Morning climb (mine)')
-    await button('Save').trigger('click')
-    await flushPromises()
+  it('should find the path for a unique puzzle and open the new take in the Studio', async () => {
+    api.use(
+      ...existingPuzzle(),
+      http.post(apiPath('/channels/1/puzzles/42/outlines'), () => HttpResponse.json(recordFor(outlineFor('PE01'), { id: 9, puzzleId: 42, name: 'Take 1' }), { status: 201 })),
+    )
+    const { user, button, router } = await open('/channels/1/puzzles/42')
+    const sent = requestLog()
+    expect(button('Find the path')).toBeEnabled()
 
-    const dialog = document.body.querySelector('[role="dialog"]')!
-    const take = [...dialog.querySelectorAll('button')].find((b) => b.textContent?.trim() === 'Use the saved version')!
-    take.click()
-    await flushPromises()
-    expect((field('Title').element as HTMLInputElement).value).toBe('Morning climb — final')
+    await user.click(button('Find the path'))
+    await settle()
 
-    await wrapper.findAll('button').find((b) => b.text() === 'Bring back my edits')!.trigger('click')
-    expect((field('Title').element as HTMLInputElement).value).toBe('Morning climb (mine)')
-    expect(wrapper.text()).toContain('Unsaved changes')
-  })
-
-  it('should find the path for a unique puzzle and open the new outline in the Studio', async () => {
-    const outline = { id: 9, puzzleId: 42, name: 'Take 1' }
-    const { button, fetchMock, router } = await open('/channels/1/puzzles/42', {
-      'GET /api/channels/1/puzzles/42': jsonResponse(200, recordFixture()),
-      'GET /api/channels/1/puzzles/42/outlines': jsonResponse(200, []),
-      'POST /api/channels/1/puzzles/42/outlines': () => jsonResponse(201, outlineRecordStub(outline)),
-    })
-    const find = button('Find the path')
-    expect(find.attributes('disabled')).toBeUndefined()
-    await find.trigger('click')
-    await flushPromises()
-
-    expect(lastCall(fetchMock, 'POST').url).toBe('/api/channels/1/puzzles/42/outlines')
+    expect(sent.filter((r) => r.startsWith('POST'))).toEqual(['POST /api/channels/1/puzzles/42/outlines'])
     expect(router.currentRoute.value.name).toBe('studio')
     expect(router.currentRoute.value.params).toMatchObject({ channelId: '1', outlineId: '9' })
   })
 
-  it("should list the puzzle's outlines with open links and duplicate one", async () => {
-    const summary = { id: 9, puzzleId: 42, name: 'Take 1', status: 'solved', stepCount: 61, totalMs: 754_000, version: 2, updatedAt: '2025-05-01T10:00:00.000Z' }
-    const { wrapper, fetchMock } = await open('/channels/1/puzzles/42', {
-      'GET /api/channels/1/puzzles/42': jsonResponse(200, recordFixture({ outlineCount: 1 })),
-      'GET /api/channels/1/puzzles/42/outlines': jsonResponse(200, [summary]),
-      'POST /api/channels/1/outlines/9/duplicate': () => jsonResponse(201, outlineRecordStub({ id: 10, puzzleId: 42, name: 'Take 1 (copy)' })),
-    })
-    const link = wrapper.findAll('a').find((a) => a.text() === 'Take 1')!
-    expect(link.attributes('href')).toBe('/channels/1/outlines/9')
-    expect(wrapper.text()).toContain('12:34')
+  it("should list the puzzle's takes with links to open them, and duplicate one", async () => {
+    api.use(
+      ...existingPuzzle(recordFixture({ outlineCount: 1 }), [takeOne]),
+      http.post(apiPath('/channels/1/outlines/9/duplicate'), () => HttpResponse.json(recordFor(outlineFor('PE01'), { id: 10, puzzleId: 42, name: 'Take 1 (copy)' }), { status: 201 })),
+    )
+    const { user } = await open('/channels/1/puzzles/42')
+    const sent = requestLog()
 
-    await wrapper.find('button[aria-label="Duplicate Take 1"]').trigger('click')
-    await flushPromises()
-    expect(lastCall(fetchMock, 'POST').url).toBe('/api/channels/1/outlines/9/duplicate')
-  })
+    expect(screen.getByRole('link', { name: 'Take 1' })).toHaveAttribute('href', '/channels/1/outlines/9')
+    expect(screen.getByLabelText('about 12:34 long')).toBeVisible()
 
-  it('should delete the puzzle only after the second confirmation, then go back to the Library', async () => {
-    const { wrapper, fetchMock, button, router } = await open('/channels/1/puzzles/42', {
-      'GET /api/channels/1/puzzles/42': jsonResponse(200, recordFixture()),
-      'GET /api/channels/1/puzzles/42/outlines': jsonResponse(200, []),
-      'DELETE /api/channels/1/puzzles/42': () => new Response(null, { status: 204 }),
-      'GET /api/channels/1/puzzles': jsonResponse(200, []),
-      'GET /api/channels/1': jsonResponse(200, { id: 1, name: 'Marigold Logic', slug: 'marigold-logic', description: '', role: 'presenter', memberCount: 4 }),
-    })
-    const deletes = () => fetchMock.mock.calls.filter(([, init]) => init?.method === 'DELETE')
-    await button('Delete…').trigger('click')
-    expect(wrapper.text()).toContain('Delete this puzzle and all its outlines?')
-    expect(deletes()).toHaveLength(0)
-    await button('Delete for good').trigger('click')
-    await flushPromises()
-    expect(deletes().map(([url]) => String(url))).toEqual(['/api/channels/1/puzzles/42'])
-    await vi.waitFor(() => expect(router.currentRoute.value.name).toBe('library'))
+    await user.click(screen.getByRole('button', { name: 'Duplicate Take 1' }))
+    await settle()
+    expect(sent[0]).toBe('POST /api/channels/1/outlines/9/duplicate')
   })
 
   it('should ask once more before deleting a take, and send the delete only when confirmed', async () => {
-    const summary = { id: 9, puzzleId: 42, name: 'Take 1', status: 'solved', stepCount: 61, totalMs: 754_000, version: 2, updatedAt: '2025-05-01T10:00:00.000Z' }
-    const { wrapper, fetchMock } = await open('/channels/1/puzzles/42', {
-      'GET /api/channels/1/puzzles/42': jsonResponse(200, recordFixture({ outlineCount: 1 })),
-      'GET /api/channels/1/puzzles/42/outlines': jsonResponse(200, [summary]),
-      'DELETE /api/channels/1/outlines/9': () => new Response(null, { status: 204 }),
+    api.use(
+      ...existingPuzzle(recordFixture({ outlineCount: 1 }), [takeOne]),
+      http.delete(apiPath('/channels/1/outlines/9'), () => new HttpResponse(null, { status: 204 })),
+    )
+    const { user } = await open('/channels/1/puzzles/42')
+    const sent = requestLog()
+
+    await user.click(screen.getByRole('button', { name: 'Delete Take 1…' }))
+    expect(screen.getByText('Delete “Take 1” and its edits?')).toBeVisible()
+    await user.click(screen.getByRole('button', { name: 'Keep' }))
+    expect(sent).toEqual([])
+
+    await user.click(screen.getByRole('button', { name: 'Delete Take 1…' }))
+    await user.click(screen.getByRole('button', { name: 'Delete Take 1 for good' }))
+    await settle()
+    expect(sent.filter((r) => r.startsWith('DELETE'))).toEqual(['DELETE /api/channels/1/outlines/9'])
+  })
+
+  it('should delete the puzzle only after the second confirmation, then go back to the Library without asking about edits', async () => {
+    api.use(
+      ...existingPuzzle(),
+      http.delete(apiPath('/channels/1/puzzles/42'), () => new HttpResponse(null, { status: 204 })),
+    )
+    const confirm = answerConfirm()
+    const { user, button, router } = await open('/channels/1/puzzles/42')
+    const sent = requestLog()
+    await user.type(screen.getByLabelText('Notes'), 'About to go')
+
+    await user.click(button('Delete…'))
+    expect(screen.getByRole('group', { name: 'Confirm delete' })).toHaveTextContent('Delete this puzzle and all its outlines?')
+    expect(sent).toEqual([])
+    await user.click(button('Delete for good'))
+    await settle()
+
+    expect(sent.filter((r) => r.startsWith('DELETE'))).toEqual(['DELETE /api/channels/1/puzzles/42'])
+    expect(router.currentRoute.value.name).toBe('library')
+    expect(confirm).not.toHaveBeenCalled()
+  })
+
+  it('should keep the puzzle when the second confirmation is declined', async () => {
+    api.use(...existingPuzzle())
+    const { user, button } = await open('/channels/1/puzzles/42')
+    const sent = requestLog()
+
+    await user.click(button('Delete…'))
+    await user.click(button('Keep it'))
+
+    expect(screen.queryByRole('group', { name: 'Confirm delete' })).toBeNull()
+    expect(button('Delete…')).toBeVisible()
+    expect(sent).toEqual([])
+  })
+
+  describe('leaving with unsaved edits', () => {
+    it('should ask before leaving for another screen, and stay when the answer is no', async () => {
+      api.use(...existingPuzzle())
+      const confirm = answerConfirm(false, true)
+      const { user, router } = await open('/channels/1/puzzles/42')
+      await user.type(screen.getByLabelText('Setter'), ' and friends')
+
+      await user.click(screen.getByRole('link', { name: 'Library' }))
+      await settle()
+      expect(confirm).toHaveBeenLastCalledWith('This puzzle has changes that are not saved. Leave anyway?')
+      expect(router.currentRoute.value.name).toBe('puzzle')
+
+      await user.click(screen.getByRole('link', { name: 'Library' }))
+      await settle()
+      expect(confirm).toHaveBeenCalledTimes(2)
+      expect(router.currentRoute.value.name).toBe('library')
     })
-    const deletes = () => fetchMock.mock.calls.filter(([, init]) => init?.method === 'DELETE')
 
-    await wrapper.find('button[aria-label="Delete Take 1…"]').trigger('click')
-    expect(wrapper.text()).toContain('Delete “Take 1” and its edits?')
-    await wrapper.findAll('button').find((b) => b.text() === 'Keep')!.trigger('click')
-    expect(deletes()).toHaveLength(0)
+    it("should have the browser ask before the tab closes only while there are edits", async () => {
+      api.use(...existingPuzzle())
+      const { user } = await open('/channels/1/puzzles/42')
+      const closeTab = () => {
+        const event = new Event('beforeunload', { cancelable: true })
+        window.dispatchEvent(event)
+        return event.defaultPrevented
+      }
+      expect(closeTab()).toBe(false)
 
-    await wrapper.find('button[aria-label="Delete Take 1…"]').trigger('click')
-    await wrapper.find('button[aria-label="Delete Take 1 for good"]').trigger('click')
-    await flushPromises()
-    expect(deletes().map(([url]) => String(url))).toEqual(['/api/channels/1/outlines/9'])
+      await user.type(screen.getByLabelText('Title'), '!')
+      expect(closeTab()).toBe(true)
+    })
+
+    it('should leave without asking when nothing changed', async () => {
+      api.use(...existingPuzzle())
+      const confirm = answerConfirm()
+      const { user, router } = await open('/channels/1/puzzles/42')
+
+      await user.click(screen.getByRole('link', { name: 'Library' }))
+      await settle()
+      expect(confirm).not.toHaveBeenCalled()
+      expect(router.currentRoute.value.name).toBe('library')
+    })
+  })
+
+  describe('puzzle files', () => {
+    /** The file chooser opens from the "Open a file…" button; the browser hands the choice to its hidden input. */
+    async function chooseFile(user: ReturnType<typeof userEvent.setup>, container: Element, name: string, text: string) {
+      await user.click(screen.getByRole('button', { name: 'Open a file…' }))
+      await user.upload(container.querySelector<HTMLInputElement>('input[type="file"]')!, new File([text], name, { type: 'application/json' }))
+      await settle()
+    }
+
+    it('should fill the title, setter and grid from a chosen file and leave it unsaved', async () => {
+      const { user, container, cell } = await open('/channels/1/puzzles/new')
+      const file = { title: 'Lantern Steps', author: 'Oona Fairweather', givens: UNIQUE, thermometers: [['r1c1', 'r2c2']] }
+      await chooseFile(user, container, 'lantern.puzzle.json', JSON.stringify(file))
+
+      expect(screen.getByText('Loaded “Lantern Steps” from lantern.puzzle.json. Save to keep it.')).toBeVisible()
+      expect(screen.getByLabelText('Title')).toHaveValue('Lantern Steps')
+      expect(screen.getByLabelText('Setter')).toHaveValue('Oona Fairweather')
+      expect(screen.getByLabelText('Givens as text')).toHaveValue(UNIQUE)
+      expect(cell('r1c3')).toHaveAccessibleName('r1c3, given 3')
+      expect(screen.getByRole('button', { name: /r1c1 → r2c2/ })).toBeVisible()
+      expect(screen.getByText('Unsaved changes')).toBeVisible()
+    })
+
+    it('should say what is wrong with a file that is not a puzzle, and change nothing', async () => {
+      const { user, container } = await open('/channels/1/puzzles/new')
+      await user.type(screen.getByLabelText('Title'), 'Mine')
+      await chooseFile(user, container, 'notes.txt', 'shopping list')
+
+      expect(screen.getByText("notes.txt is not a Gridcue puzzle file (it isn't JSON).")).toBeVisible()
+      expect(screen.getByLabelText('Title')).toHaveValue('Mine')
+      expect(screen.getByLabelText('Givens as text')).toHaveValue('.'.repeat(81))
+    })
+
+    it('should download the puzzle as a file named after its title', async () => {
+      api.use(...existingPuzzle(recordFixture({ thermometers: [['r1c1', 'r2c2']] })))
+      const blobs: Blob[] = []
+      vi.spyOn(URL, 'createObjectURL').mockImplementation((blob) => {
+        blobs.push(blob as Blob)
+        return 'blob:puzzle'
+      })
+      vi.spyOn(URL, 'revokeObjectURL').mockImplementation(() => {})
+      const names: string[] = []
+      vi.spyOn(HTMLAnchorElement.prototype, 'click').mockImplementation(function (this: HTMLAnchorElement) {
+        names.push(this.download)
+      })
+      const { user } = await open('/channels/1/puzzles/42')
+
+      await user.click(screen.getByRole('button', { name: 'Download' }))
+
+      expect(names).toEqual(['morning-climb.puzzle.json'])
+      expect(JSON.parse(await blobs[0]!.text())).toEqual({ title: 'Morning climb', author: 'Rosa Ilves', givens: UNIQUE, thermometers: [['r1c1', 'r2c2']] })
+    })
+  })
+
+  it('should show the puzzle read-only to an editor: no saving, no file to open, no path to find', async () => {
+    api.use(...existingPuzzle(recordFixture(), [takeOne]))
+    const { user } = await open('/channels/1/puzzles/42', 'editor')
+
+    expect(screen.getByText('Read only: owners and presenters edit puzzles.')).toBeVisible()
+    for (const label of ['Title', 'Setter', 'Link to the puzzle', 'First published', 'Notes', 'Givens as text']) {
+      expect(screen.getByLabelText(label)).toBeDisabled()
+    }
+    expect(screen.getByRole('grid', { name: 'Puzzle grid' })).toHaveAttribute('aria-readonly', 'true')
+    for (const name of ['Save', 'Undo', 'Delete…', 'Open a file…', 'Duplicate Take 1']) {
+      expect(screen.queryByRole('button', { name })).toBeNull()
+    }
+    expect(screen.getByRole('button', { name: 'Find the path' })).toHaveAccessibleDescription('Owners and presenters can find the path.')
+    expect(screen.getByRole('button', { name: 'Download' })).toBeEnabled()
+
+    // Keys on the grid change nothing.
+    await user.click(within(screen.getByRole('grid', { name: 'Puzzle grid' })).getByRole('gridcell', { name: /^r1c1,/ }))
+    await user.keyboard('9')
+    expect(screen.getByLabelText('Givens as text')).toHaveValue(UNIQUE)
+  })
+
+  it('should say so when the puzzle is not in this channel', async () => {
+    const notFound = () => HttpResponse.json({ code: 'not-found', message: 'Not found' }, { status: 404 })
+    api.use(http.get(apiPath('/channels/1/puzzles/77'), notFound), http.get(apiPath('/channels/1/puzzles/77/outlines'), notFound))
+    await open('/channels/1/puzzles/77')
+
+    expect(screen.getByRole('heading', { level: 1 })).toHaveTextContent('Puzzle not available')
+    expect(screen.getByText("This puzzle doesn't exist in this channel, or you can't open it.")).toBeVisible()
   })
 })
-
-/** The smallest outline record the shared schema accepts. */
-function outlineRecordStub(o: { id: number; puzzleId: number; name: string }) {
-  const step = {
-    technique: 'naked-single',
-    placements: [{ cell: 2, digit: 4 }],
-    eliminations: [],
-    focus: [2],
-    reason: { houses: [], thermometers: [], cells: [] },
-    facts: { kind: 'single-cell', cell: 2, digit: 4, seen: { row: [5, 3, 7], column: [8], box: [6, 9, 1, 2], thermometer: [] } },
-    difficulty: 1,
-    marks: [],
-    text: 'r1c3 can only be 4',
-  }
-  return {
-    ...o,
-    status: 'solved',
-    stepCount: 1,
-    totalMs: 3000,
-    version: 1,
-    updatedAt: '2025-05-01T10:00:00.000Z',
-    outline: {
-      version: 1,
-      title: 'Morning climb',
-      pace: 170,
-      names: 'words',
-      status: 'solved',
-      puzzle: { givens: UNIQUE, thermometers: [] },
-      steps: [step],
-      lines: [{ id: 1, kind: 'step', steps: [0], text: 'This cell can only be a 4.', edited: false, hidden: false, phrasing: 0, estMs: 3000 }],
-      chapters: [{ lineId: 1, title: 'Break-in', edited: false }],
-    },
-  }
-}

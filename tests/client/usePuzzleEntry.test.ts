@@ -1,161 +1,188 @@
 import { describe, expect, it } from 'vitest'
-import { mount } from '@vue/test-utils'
+import { screen, within } from '@testing-library/vue'
+import userEvent from '@testing-library/user-event'
 import { defineComponent, h, ref } from 'vue'
-import GridBoard from '@/components/GridBoard.vue'
+import PuzzleGivensField from '@/components/PuzzleGivensField.vue'
+import PuzzleGridEditor from '@/components/PuzzleGridEditor.vue'
+import PuzzleThermometerList from '@/components/PuzzleThermometerList.vue'
 import { usePuzzleEntry } from '@/composables/usePuzzleEntry'
+import classic from '../fixtures/classic-puzzles.json'
+import { renderComponent } from './render'
 
-const at = (r: number, c: number) => (r - 1) * 9 + (c - 1)
+// The Wikipedia "Sudoku" example (source named in tests/fixtures/classic-puzzles.json), as nine typed rows.
+const WIKI1 = classic.puzzles.find((p) => p.id === 'WIKI1')!.givens
+const WIKI1_ROWS = WIKI1.match(/.{9}/g)!
 
-/** GridBoard wired to the composable the way the Puzzle screen does it. */
-function mountEntry(editable = true) {
-  let entry!: ReturnType<typeof usePuzzleEntry>
+/** The grid editor, the givens field and the thermometer list on one entry, as the Puzzle screen wires them. */
+function renderEntry(editable = true) {
   const canEdit = ref(editable)
   const Harness = defineComponent({
     setup() {
-      entry = usePuzzleEntry({ editable: canEdit })
-      return () =>
-        h(GridBoard, {
-          digits: entry.givens.value,
-          givens: entry.givenFlags.value,
-          thermometers: entry.shownThermometers.value,
-          selected: entry.selected.value,
-          selectedThermometer: entry.selectedThermometer.value,
-          interactive: canEdit.value,
-          onCellDown: entry.onCellDown,
-          onCellEnter: entry.onCellEnter,
-          onCellUp: entry.onCellUp,
-          onThermometerClick: entry.onThermometerClick,
-          onKeydown: entry.onKeydown,
-          onPaste: entry.onPaste,
-          onFocus: entry.ensureSelection,
-        })
+      const entry = usePuzzleEntry({ editable: canEdit })
+      return () => [
+        h(PuzzleGridEditor, { entry, editable: canEdit.value }),
+        h(PuzzleGivensField, { givens: entry.givensString.value, disabled: !canEdit.value, apply: entry.pasteGivens }),
+        h(PuzzleThermometerList, {
+          thermometers: entry.thermometerNames.value,
+          selected: entry.selectedThermometer.value,
+          readonly: !canEdit.value,
+          add: entry.addThermometerFromText,
+          onSelect: entry.onThermometerClick,
+          onRemove: entry.removeThermometer,
+        }),
+      ]
     },
   })
-  const wrapper = mount(Harness, { attachTo: document.body })
-  const grid = wrapper.find('[role="grid"]')
-  const cell = (c: number) => wrapper.find(`[data-cell="${c}"]`)
-  const key = (k: string, extra: Record<string, unknown> = {}) => grid.trigger('keydown', { key: k, ...extra })
-  async function drag(...cells: number[]) {
-    await cell(cells[0]).trigger('pointerdown', { button: 0, pointerId: 1 })
-    for (const c of cells.slice(1)) await cell(c).trigger('pointermove', { pointerId: 1 })
-    await cell(cells[cells.length - 1]).trigger('pointerup', { pointerId: 1 })
+  renderComponent(Harness)
+  const user = userEvent.setup()
+  const grid = screen.getByRole('grid', { name: /^Puzzle grid/ })
+  const cell = (name: string) => within(grid).getByRole('gridcell', { name: new RegExp(`^${name},`) })
+  const selectedCell = () => within(grid).getByRole('gridcell', { selected: true }).getAttribute('aria-label')!.split(',')[0]
+  const givensText = () => (screen.getByLabelText('Givens as text') as HTMLInputElement).value
+  /** Each thermometer as the list reads it, bulb first. */
+  const thermometers = () => screen.queryAllByRole('button', { name: /→/ }).map((b) => b.textContent!.replace(/^\d+/, '').trim())
+  async function drag(...names: string[]) {
+    const [first, ...rest] = names.map(cell)
+    await user.pointer([{ keys: '[MouseLeft>]', target: first }, ...rest.map((target) => ({ target })), { keys: '[/MouseLeft]' }])
   }
-  return { wrapper, grid, cell, key, drag, entry: () => entry, canEdit }
+  return { user, grid, cell, selectedCell, givensText, thermometers, drag }
 }
 
 describe('usePuzzleEntry', () => {
   it('should select r1c1 when the grid takes focus, move with arrows and stop at the edges', async () => {
-    const { grid, key, entry } = mountEntry()
-    await grid.trigger('focus')
-    expect(entry().selected.value).toBe(at(1, 1))
-    await key('ArrowRight')
-    await key('ArrowDown')
-    await key('ArrowDown')
-    expect(entry().selected.value).toBe(at(3, 2))
-    await key('ArrowUp')
-    await key('ArrowUp')
-    await key('ArrowUp')
-    expect(entry().selected.value).toBe(at(1, 2))
+    const { user, grid, selectedCell } = renderEntry()
+    await user.tab()
+    expect(grid).toHaveFocus()
+    expect(selectedCell()).toBe('r1c1')
+
+    await user.keyboard('{ArrowRight}{ArrowDown}{ArrowDown}')
+    expect(selectedCell()).toBe('r3c2')
+    await user.keyboard('{ArrowUp}{ArrowUp}{ArrowUp}')
+    expect(selectedCell()).toBe('r1c2')
   })
 
-  it('should set a given with a digit key and show it on the grid', async () => {
-    const { cell, key, entry, grid } = mountEntry()
-    await cell(at(3, 4)).trigger('pointerdown', { button: 0 })
-    await cell(at(3, 4)).trigger('pointerup')
-    await key('7')
-    expect(entry().givens.value[at(3, 4)]).toBe(7)
-    expect(entry().givensString.value.slice(18, 27)).toBe('...7.....')
-    expect(cell(at(3, 4)).attributes('aria-label')).toBe('r3c4, given 7')
-    expect(grid.attributes('aria-activedescendant')).toBe(cell(at(3, 4)).attributes('id'))
+  it('should set a given with a digit key and show it on the grid and in the text', async () => {
+    const { user, grid, cell, givensText } = renderEntry()
+    await user.click(cell('r3c4'))
+    await user.keyboard('7')
+
+    expect(cell('r3c4')).toHaveAccessibleName('r3c4, given 7')
+    expect(grid).toHaveAttribute('aria-activedescendant', cell('r3c4').id)
+    expect(givensText().slice(18, 27)).toBe('...7.....')
   })
 
   it('should clear a given with Backspace, Delete or 0 and undo with Ctrl+Z', async () => {
-    const { key, entry } = mountEntry()
-    entry().select(at(5, 5))
-    await key('4')
-    await key('Backspace')
-    expect(entry().givens.value[at(5, 5)]).toBe(0)
-    await key('6')
-    await key('Delete')
-    expect(entry().givens.value[at(5, 5)]).toBe(0)
-    await key('z', { ctrlKey: true })
-    expect(entry().givens.value[at(5, 5)]).toBe(6)
-    await key('0')
-    expect(entry().givens.value[at(5, 5)]).toBe(0)
+    const { user, cell } = renderEntry()
+    await user.click(cell('r5c5'))
+    await user.keyboard('4{Backspace}')
+    expect(cell('r5c5')).toHaveAccessibleName('r5c5, empty')
+    await user.keyboard('6{Delete}')
+    expect(cell('r5c5')).toHaveAccessibleName('r5c5, empty')
+    await user.keyboard('{Control>}z{/Control}')
+    expect(cell('r5c5')).toHaveAccessibleName('r5c5, given 6')
+    await user.keyboard('0')
+    expect(cell('r5c5')).toHaveAccessibleName('r5c5, empty')
   })
 
   it('should fill the grid from a pasted 81-character string, with line breaks allowed', async () => {
-    const { grid, entry } = mountEntry()
-    const rows = ['53..7....', '6..195...', '.98....6.', '8...6...3', '4..8.3..1', '7...2...6', '.6....28.', '...419..5', '....8..79']
-    const clipboardData = { getData: (type: string) => (type === 'text/plain' ? rows.join('\n') : '') }
-    await grid.trigger('paste', { clipboardData })
-    expect(entry().givensString.value).toBe(rows.join(''))
-    expect(entry().givens.value[0]).toBe(5)
+    const { user, cell, givensText } = renderEntry()
+    await user.click(cell('r1c1'))
+    await user.paste(WIKI1_ROWS.join('\n'))
+
+    expect(givensText()).toBe(WIKI1)
+    expect(cell('r1c1')).toHaveAccessibleName('r1c1, given 5')
+    expect(cell('r9c9')).toHaveAccessibleName('r9c9, given 9')
   })
 
-  it('should refuse a paste that is not 81 grid characters', () => {
-    const { entry } = mountEntry()
-    expect(entry().pasteGivens('12345')).toBe(false)
-    expect(entry().pasteGivens('x'.repeat(81))).toBe(false)
-    expect(entry().givensString.value).toBe('.'.repeat(81))
+  it('should refuse a paste that is not 81 grid characters, and say why', async () => {
+    const { user, cell, givensText } = renderEntry()
+    await user.click(cell('r1c1'))
+    await user.paste('12345')
+
+    expect(screen.getByText(/That paste isn't a grid/)).toBeVisible()
+    expect(givensText()).toBe('.'.repeat(81))
+  })
+
+  it('should fill the grid from the givens field on Enter, and explain text that is not a grid', async () => {
+    const { user, cell } = renderEntry()
+    const field = screen.getByLabelText('Givens as text')
+    await user.clear(field)
+    await user.type(field, `${'x'.repeat(81)}{Enter}`)
+    expect(field).toHaveAccessibleDescription("Use 81 characters: 1-9 for a given, '.' or 0 for an empty cell.")
+    expect(cell('r1c1')).toHaveAccessibleName('r1c1, empty')
+
+    await user.clear(field)
+    await user.type(field, `${WIKI1}{Enter}`)
+    expect(field).toHaveAccessibleDescription("81 characters, row by row; '.' for an empty cell.")
+    expect(cell('r1c2')).toHaveAccessibleName('r1c2, given 3')
   })
 
   it('should draw a thermometer through touching cells with the bulb where the drag started', async () => {
-    const { wrapper, drag, entry } = mountEntry()
-    await drag(at(2, 2), at(2, 3), at(3, 4), at(4, 4))
-    expect(entry().thermometers.value).toEqual([[at(2, 2), at(2, 3), at(3, 4), at(4, 4)]])
-    expect(entry().thermometerNames.value).toEqual([['r2c2', 'r2c3', 'r3c4', 'r4c4']])
-    const bulb = wrapper.find('.grid-board__bulb')
-    expect([bulb.attributes('cx'), bulb.attributes('cy')]).toEqual(['150', '150'])
+    const { drag, thermometers } = renderEntry()
+    await drag('r2c2', 'r2c3', 'r3c4', 'r4c4')
+    expect(thermometers()).toEqual(['r2c2 → r2c3 → r3c4 → r4c4'])
   })
 
   it('should ignore a move to a cell that does not touch the last one', async () => {
-    const { drag, entry } = mountEntry()
+    const { drag, thermometers } = renderEntry()
     // r1c1 → r1c3 skips a cell, so it is ignored; r1c2 then continues the path from r1c1.
-    await drag(at(1, 1), at(1, 3), at(1, 2), at(2, 3))
-    expect(entry().thermometers.value).toEqual([[at(1, 1), at(1, 2), at(2, 3)]])
+    await drag('r1c1', 'r1c3', 'r1c2', 'r2c3')
+    expect(thermometers()).toEqual(['r1c1 → r1c2 → r2c3'])
   })
 
-  it('should take the last cell back off when the drag goes back over it, and not save a single cell', async () => {
-    const { drag, entry } = mountEntry()
-    await drag(at(5, 5), at(5, 6), at(5, 5))
-    expect(entry().thermometers.value).toEqual([])
-    await drag(at(5, 5), at(6, 6), at(7, 7), at(6, 6))
-    expect(entry().thermometers.value).toEqual([[at(5, 5), at(6, 6)]])
+  it('should take the last cell back off when the drag goes back over it, and not keep a single cell', async () => {
+    const { drag, thermometers } = renderEntry()
+    await drag('r5c5', 'r5c6', 'r5c5')
+    expect(thermometers()).toEqual([])
+    await drag('r5c5', 'r6c6', 'r7c7', 'r6c6')
+    expect(thermometers()).toEqual(['r5c5 → r6c6'])
   })
 
-  it('should select a thermometer with a click and remove it with Delete', async () => {
-    const { wrapper, drag, key, entry } = mountEntry()
-    await drag(at(1, 1), at(1, 2))
-    await drag(at(9, 9), at(8, 8), at(7, 7))
-    await key('Escape')
-    expect(entry().selectedThermometer.value).toBeNull()
+  it('should select a thermometer from the list and remove it with Delete on the grid', async () => {
+    const { user, grid, drag, thermometers } = renderEntry()
+    await drag('r1c1', 'r1c2')
+    await drag('r9c9', 'r8c8', 'r7c7')
+    await user.keyboard('{Escape}')
+    expect(screen.queryAllByRole('button', { pressed: true, name: /→/ })).toEqual([])
 
-    const tube = wrapper.findAll('.grid-board__thermometer')[1]!.find('.grid-board__tube')
-    await tube.trigger('pointerdown', { button: 0, pointerId: 3 })
-    await tube.trigger('pointerup', { pointerId: 3 })
-    expect(entry().selectedThermometer.value).toBe(1)
-    expect(wrapper.findAll('.grid-board__thermometer')[1]!.classes()).toContain('is-selected')
+    const second = screen.getByRole('button', { name: /r9c9 → r8c8 → r7c7/ })
+    await user.click(second)
+    expect(second).toHaveAttribute('aria-pressed', 'true')
 
-    await key('Delete')
-    expect(entry().thermometers.value).toEqual([[at(1, 1), at(1, 2)]])
-    expect(entry().selectedThermometer.value).toBeNull()
+    // back on the grid, as after a Shift+Tab
+    grid.focus()
+    await user.keyboard('{Delete}')
+    expect(thermometers()).toEqual(['r1c1 → r1c2'])
+    expect(screen.queryAllByRole('button', { pressed: true, name: /→/ })).toEqual([])
   })
 
-  it('should add a thermometer typed as cell names and explain a bad one', () => {
-    const { entry } = mountEntry()
-    expect(entry().addThermometerFromText('r1c1 r1c3')).toMatch(/don't touch/)
-    expect(entry().addThermometerFromText('r1c1 x9')).toMatch(/not a cell name/)
-    expect(entry().addThermometerFromText('r1c1 → r2c2 → r3c3')).toBeNull()
-    expect(entry().thermometers.value).toEqual([[at(1, 1), at(2, 2), at(3, 3)]])
+  it('should add a thermometer typed as cell names and explain a bad one', async () => {
+    const { user, thermometers } = renderEntry()
+    const field = screen.getByLabelText('Add by cells, bulb first')
+    const add = async (text: string) => {
+      await user.clear(field)
+      await user.type(field, text)
+      await user.click(screen.getByRole('button', { name: 'Add' }))
+    }
+
+    await add('r1c1 r1c3')
+    expect(screen.getByText(/r1c1 and r1c3 don't touch/)).toBeVisible()
+    await add('r1c1 x9')
+    expect(screen.getByText('"x9" is not a cell name such as r3c4.')).toBeVisible()
+    await add('r1c1 → r2c2 → r3c3')
+    expect(thermometers()).toEqual(['r1c1 → r2c2 → r3c3'])
+    expect(field).toHaveValue('')
   })
 
   it('should change nothing when the grid is read-only', async () => {
-    const { entry, key, drag } = mountEntry(false)
-    entry().select(0)
-    await key('5')
-    await drag(at(1, 1), at(1, 2))
-    expect(entry().givensString.value).toBe('.'.repeat(81))
-    expect(entry().thermometers.value).toEqual([])
+    const { user, grid, cell, givensText, drag, thermometers } = renderEntry(false)
+    expect(grid).toHaveAttribute('aria-readonly', 'true')
+    await user.click(cell('r1c1'))
+    await user.keyboard('5')
+    await drag('r1c1', 'r1c2')
+
+    expect(givensText()).toBe('.'.repeat(81))
+    expect(thermometers()).toEqual([])
+    expect(screen.queryByLabelText('Add by cells, bulb first')).toBeNull()
   })
 })
