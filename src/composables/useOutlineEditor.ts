@@ -1,4 +1,5 @@
-import { computed, onScopeDispose, ref, shallowRef, toRaw } from 'vue'
+import { computed, ref, shallowRef, toRaw } from 'vue'
+import { useEventListener } from '@vueuse/core'
 import { applyEdit, timeline } from '@shared/script'
 import type { Outline, OutlineEdit } from '@shared/script'
 
@@ -139,8 +140,7 @@ export function useOutlineEditor(options: OutlineEditorOptions = {}) {
       if (key === 'y' || event.shiftKey) redo()
       else undo()
     }
-    window.addEventListener('keydown', onKeydown)
-    onScopeDispose(() => window.removeEventListener('keydown', onKeydown))
+    useEventListener(window, 'keydown', onKeydown)
   }
 
   return { outline, timing, error, canUndo, canRedo, load, apply, applyAll, replace, undo, redo, clearError }

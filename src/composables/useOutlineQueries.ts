@@ -1,8 +1,8 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/vue-query'
 import { toValue } from 'vue'
 import type { MaybeRefOrGetter } from 'vue'
-import type { OutlineCreate, OutlineRecord, OutlineSave } from '@shared/schemas/studio'
-import { createOutline, duplicateOutline, getOutline, listOutlines, removeOutline, saveOutline } from '@/api/outlines'
+import type { OutlineCreate, OutlineRecord } from '@shared/schemas/studio'
+import { createOutline, duplicateOutline, getOutline, listOutlines, removeOutline } from '@/api/outlines'
 import { outlineKeys, puzzleKeys } from '@/api/queryKeys'
 
 /** The takes of one puzzle (nothing is fetched while the puzzle is unsaved). */
@@ -14,12 +14,14 @@ export function useOutlineList(channelId: MaybeRefOrGetter<number>, puzzleId: Ma
   })
 }
 
-/** One outline, for the Studio. */
+/** One outline, for the Studio: fetched afresh on every visit, never refetched behind the editor's back. */
 export function useOutline(channelId: MaybeRefOrGetter<number>, outlineId: MaybeRefOrGetter<number>) {
   return useQuery({
     queryKey: () => outlineKeys.detail(toValue(channelId), toValue(outlineId)),
     queryFn: ({ signal }) => getOutline(toValue(channelId), toValue(outlineId), signal),
+    // The editor owns the document once loaded; a background refetch must not swap it under the person typing.
     refetchOnWindowFocus: false,
+    refetchOnMount: 'always',
   })
 }
 
@@ -36,15 +38,6 @@ export function useDuplicateOutline(channelId: MaybeRefOrGetter<number>) {
   const client = useQueryClient()
   return useMutation({
     mutationFn: (outlineId: number) => duplicateOutline(toValue(channelId), outlineId),
-    onSuccess: (record) => afterChange(client, toValue(channelId), record),
-  })
-}
-
-/** PATCH with the version read; a stale version rejects with a StaleError (see api/stale.ts). */
-export function useSaveOutline(channelId: MaybeRefOrGetter<number>) {
-  const client = useQueryClient()
-  return useMutation({
-    mutationFn: ({ outlineId, body }: { outlineId: number; body: OutlineSave }) => saveOutline(toValue(channelId), outlineId, body),
     onSuccess: (record) => afterChange(client, toValue(channelId), record),
   })
 }

@@ -63,5 +63,11 @@ export function useReplay(outline: MaybeRefOrGetter<Outline | null>, step: Maybe
     return { number: k.value, plainName: info.plainName, tradeTerm: info.tradeTerm, text: s.text }
   })
 
-  return { board, header, stuck, stepCount: computed(() => steps.value.length) }
+  /** On the last step of a path that stops short: the place where a person takes over. */
+  const atStop = computed(() => stuck.value && k.value === steps.value.length && steps.value.length > 0)
+
+  return { board, header, stuck, atStop, stepCount: computed(() => steps.value.length) }
 }
+
+/** Everything the grid draws at one replay position (GridBoard's props). */
+export type ReplayBoard = NonNullable<ReturnType<typeof useReplay>['board']['value']>

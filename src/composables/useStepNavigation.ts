@@ -1,6 +1,7 @@
 import { computed, onScopeDispose, ref, toValue, watch } from 'vue'
 import type { MaybeRefOrGetter } from 'vue'
 import { useRoute, useRouter } from 'vue-router'
+import { refAutoReset, useDebounceFn, useEventListener } from '@vueuse/core'
 
 export interface StepNavigationOptions {
   /** Number of engine steps; the replay runs from 0 (the givens) to stepCount (after the last step). */
@@ -33,8 +34,8 @@ export function useStepNavigation(options: StepNavigationOptions) {
   const step = computed(() => clamp(requested.value, 0, count.value))
   const atStart = computed(() => step.value === 0)
   const atEnd = computed(() => step.value >= count.value)
-  /** Digits typed so far for a jump ("12" then Enter goes to step 12); empty when none. */
-  const typed = ref('')
+  /** Digits typed so far for a jump ("12" then Enter goes to step 12); empty when none, and again after a pause. */
+  const typed = refAutoReset('', TYPED_TIMEOUT_MS)
 
   function go(k: number): void {
     if (!Number.isFinite(k)) return
@@ -46,35 +47,27 @@ export function useStepNavigation(options: StepNavigationOptions) {
   const last = () => go(count.value)
 
   // URL sync: write after a pause; follow the URL when something else changes it (a link, a pasted address).
-  let urlTimer: ReturnType<typeof setTimeout> | undefined
   let lastWritten: string | null = null
-  watch(step, (k) => {
-    clearTimeout(urlTimer)
-    urlTimer = setTimeout(() => {
-      const value = String(k)
-      if (route.query.step === value) return
-      lastWritten = value
-      void router.replace({ query: { ...route.query, step: value }, hash: route.hash })
-    }, urlDelayMs)
-  })
+  const writeUrl = useDebounceFn((k: number) => {
+    const value = String(k)
+    if (route.query.step === value) return
+    lastWritten = value
+    void router.replace({ query: { ...route.query, step: value }, hash: route.hash })
+  }, urlDelayMs)
+  watch(step, (k) => void writeUrl(k))
   watch(
     () => route.query.step,
     (raw) => {
       if (typeof raw === 'string' && raw === lastWritten) return
       const k = readStepQuery(raw)
       if (k !== null && k !== step.value) {
-        clearTimeout(urlTimer)
+        writeUrl.cancel()
         requested.value = k
       }
     },
   )
-
-  let typedTimer: ReturnType<typeof setTimeout> | undefined
-  function setTyped(value: string): void {
-    typed.value = value
-    clearTimeout(typedTimer)
-    if (value) typedTimer = setTimeout(() => (typed.value = ''), TYPED_TIMEOUT_MS)
-  }
+  // Leaving the Studio: a write still waiting would put ?step= on the next screen's address.
+  onScopeDispose(() => writeUrl.cancel())
 
   function onKeydown(event: KeyboardEvent): void {
     if (!(toValue(options.keyboard) ?? true)) return
@@ -86,26 +79,21 @@ export function useStepNavigation(options: StepNavigationOptions) {
     else if (key === 'Home') first()
     else if (key === 'End') last()
     else if (/^[0-9]$/.test(key) && !event.repeat) {
-      setTyped((typed.value + key).slice(-MAX_TYPED_DIGITS))
+      typed.value = (typed.value + key).slice(-MAX_TYPED_DIGITS)
     } else if (key === 'Backspace' && typed.value) {
-      setTyped(typed.value.slice(0, -1))
+      typed.value = typed.value.slice(0, -1)
     } else if (key === 'Escape' && typed.value) {
-      setTyped('')
+      typed.value = ''
     } else if (key === 'Enter' && typed.value) {
       go(Number(typed.value))
-      setTyped('')
+      typed.value = ''
     } else {
       return
     }
     event.preventDefault()
   }
 
-  window.addEventListener('keydown', onKeydown)
-  onScopeDispose(() => {
-    window.removeEventListener('keydown', onKeydown)
-    clearTimeout(urlTimer)
-    clearTimeout(typedTimer)
-  })
+  useEventListener(window, 'keydown', onKeydown)
 
   return { step, count, atStart, atEnd, typed, go, next, previous, first, last }
 }
