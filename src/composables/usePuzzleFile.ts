@@ -47,13 +47,14 @@ function readPuzzleFile(text: string, fileName: string): { puzzle: PuzzleFile } 
   return parsed.success ? { puzzle: parsed.data } : { problem: describeIssue(parsed.error.issues[0], fileName) }
 }
 
-/** The schema's first complaint in the presenter's words: givens and cell names get a line of their own. */
+/** The schema's first complaint in the presenter's words: givens, cell names and thermometer lengths get a line of their own. */
 function describeIssue(issue: z.core.$ZodIssue, fileName: string): string {
   const [field, thermometer, cell] = issue.path
   if (field === 'givens' && issue.code === 'invalid_format') return `${fileName}: the givens must be 81 characters, each 1-9 or '.'.`
   if (field === 'thermometers' && cell !== undefined && issue.code === 'invalid_format') return `${fileName}: "${String(issue.input)}" is not a cell name such as r3c4.`
-  if (field === 'thermometers' && typeof thermometer === 'number' && cell === undefined && (issue.code === 'too_small' || issue.code === 'too_big')) {
-    return `${fileName}: thermometer ${thermometer + 1} has ${Array.isArray(issue.input) ? issue.input.length : 'the wrong number of'} cells; a thermometer has 2 to 9.`
+  if (field === 'thermometers' && typeof thermometer === 'number' && cell === undefined && Array.isArray(issue.input)) {
+    const count = issue.input.length
+    return `${fileName}: thermometer ${thermometer + 1} has ${count} ${count === 1 ? 'cell' : 'cells'}; a thermometer has 2 to 9.`
   }
   return `${fileName} is not a Gridcue puzzle file: ${issue.path.join('.') || 'file'} — ${issue.message}.`
 }
