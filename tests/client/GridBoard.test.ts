@@ -1,182 +1,195 @@
 import { describe, expect, it } from 'vitest'
-import { mount } from '@vue/test-utils'
+import { fireEvent, render, screen, within } from '@testing-library/vue'
+import { maskOf } from '@shared/grid'
 import GridBoard from '@/components/GridBoard.vue'
 import type { GridBoardProps } from '@/components/GridBoard.vue'
+import './render'
 
 const empty = () => new Array<number>(81).fill(0)
 const cellIndex = (r: number, c: number) => (r - 1) * 9 + (c - 1)
-const mask = (...digits: number[]) => digits.reduce((m, d) => m | (1 << (d - 1)), 0)
+const ALL = maskOf([1, 2, 3, 4, 5, 6, 7, 8, 9])
 
-function board(overrides: Partial<GridBoardProps> = {}) {
+/** A 7 given at r3c4 and a deduced 5 at r1c1, plus whatever the test adds. */
+function boardProps(overrides: Partial<GridBoardProps> = {}): GridBoardProps {
   const digits = empty()
   const givens = empty()
   digits[cellIndex(3, 4)] = 7
   givens[cellIndex(3, 4)] = 1
-  digits[cellIndex(1, 1)] = 5 // deduced
-  const props: GridBoardProps = { digits, givens, thermometers: [], ...overrides }
-  return mount(GridBoard, { props })
+  digits[cellIndex(1, 1)] = 5
+  return { digits, givens, thermometers: [], ...overrides }
 }
 
-const cell = (wrapper: ReturnType<typeof board>, r: number, c: number) => wrapper.find(`[data-cell="${cellIndex(r, c)}"]`)
+const renderBoard = (overrides: Partial<GridBoardProps> = {}) => render(GridBoard, { props: boardProps(overrides) })
+const grid = () => screen.getByRole('grid')
+/** The cell at row r, column c, found by its name ("r3c4, …"). */
+const cell = (r: number, c: number) => screen.getByRole('gridcell', { name: new RegExp(`^r${r}c${c},`) })
+
+// Drawing details that no cell name carries (shapes beside the tints, one text per cell) are counted by SVG
+// element; the overlays are aria-hidden, since the cell names already say what they show.
+const shapes = (tag: 'path' | 'rect' | 'line' | 'text') => grid().querySelectorAll(tag).length
+const pathThrough = (d: string) => Array.from(grid().querySelectorAll('path')).find((p) => p.getAttribute('d') === d)
 
 describe('GridBoard', () => {
   it('should expose a named grid of 9 rows with 81 cells', () => {
-    const wrapper = board({ label: 'Replay grid' })
-    const grid = wrapper.find('[role="grid"]')
-    expect(grid.attributes('aria-label')).toBe('Replay grid')
-    expect(wrapper.findAll('[role="row"]')).toHaveLength(9)
-    expect(wrapper.findAll('[role="gridcell"]')).toHaveLength(81)
+    renderBoard({ label: 'Replay grid' })
+    const named = screen.getByRole('grid', { name: 'Replay grid' })
+    expect(within(named).getAllByRole('row')).toHaveLength(9)
+    expect(within(named).getAllByRole('gridcell')).toHaveLength(81)
+    expect(within(named).getAllByRole('row')[2]).toContainElement(cell(3, 4))
   })
 
-  it('should name cells like "r3c4, given 7" and tell givens from deduced digits', () => {
-    const wrapper = board()
-    expect(cell(wrapper, 3, 4).attributes('aria-label')).toBe('r3c4, given 7')
-    expect(cell(wrapper, 1, 1).attributes('aria-label')).toBe('r1c1, 5')
-    expect(cell(wrapper, 9, 9).attributes('aria-label')).toBe('r9c9, empty')
-
-    const given = wrapper.findAll('.grid-board__digit--given')
-    const deduced = wrapper.findAll('.grid-board__digit--deduced')
-    expect(given.map((t) => t.text())).toEqual(['7'])
-    expect(deduced.map((t) => t.text())).toEqual(['5'])
+  it('should name cells like "r3c4, given 7", telling givens from deduced digits, and draw the digits', () => {
+    renderBoard()
+    expect(cell(3, 4)).toHaveAccessibleName('r3c4, given 7')
+    expect(cell(1, 1)).toHaveAccessibleName('r1c1, 5')
+    expect(cell(9, 9)).toHaveAccessibleName('r9c9, empty')
+    expect(within(grid()).getByText('7')).toBeInTheDocument()
+    expect(within(grid()).getByText('5')).toBeInTheDocument()
   })
 
-  it('should show candidates only in marked cells and name them', () => {
-    const candidates = new Array<number>(81).fill(mask(1, 2, 3, 4, 5, 6, 7, 8, 9))
-    candidates[cellIndex(3, 5)] = mask(1, 2, 5)
-    const wrapper = board({ candidates, marks: [cellIndex(3, 5)] })
+  it('should show candidates only in marked cells, one text per cell, and name them', () => {
+    const candidates = new Array<number>(81).fill(ALL)
+    candidates[cellIndex(3, 5)] = maskOf([1, 2, 5])
+    renderBoard({ candidates, marks: [cellIndex(3, 5)] })
 
-    // One <text> per cell, each digit placed in its own spot of the cell's 3×3 pattern.
-    const shown = wrapper.findAll('.grid-board__candidate')
-    expect(shown.map((t) => t.text())).toEqual(['125'])
-    expect(shown[0].attributes('x')!.split(' ')).toHaveLength(3)
-    expect(cell(wrapper, 3, 5).attributes('aria-label')).toBe('r3c5, empty, candidates 1 2 5')
-    expect(cell(wrapper, 3, 6).attributes('aria-label')).toBe('r3c6, empty')
+    expect(cell(3, 5)).toHaveAccessibleName('r3c5, empty, candidates 1 2 5')
+    expect(cell(3, 6)).toHaveAccessibleName('r3c6, empty')
+    // each digit of the text placed in its own spot of the cell's 3×3 pattern
+    const marks = within(grid()).getByText('125')
+    expect(marks.getAttribute('x')!.split(' ')).toHaveLength(3)
+    expect(within(grid()).queryByText('123456789')).not.toBeInTheDocument()
   })
 
   it('should strike eliminated candidates through, even outside the marked cells', () => {
-    const candidates = new Array<number>(81).fill(0)
-    candidates[cellIndex(2, 2)] = mask(4, 6)
-    const wrapper = board({ candidates, marks: [cellIndex(2, 2)], eliminated: [{ cell: cellIndex(2, 2), digits: [8] }, { cell: cellIndex(5, 5), digits: [3] }] })
+    const candidates = empty()
+    candidates[cellIndex(2, 2)] = maskOf([4, 6])
+    const plain = renderBoard({ candidates, marks: [cellIndex(2, 2)] })
+    const linesBefore = shapes('line')
+    plain.unmount()
 
-    const struck = wrapper.findAll('.grid-board__candidate--struck')
-    expect(struck.map((t) => t.text())).toEqual(['8', '3'])
-    expect(wrapper.findAll('.grid-board__strike')).toHaveLength(2)
-    expect(cell(wrapper, 2, 2).attributes('aria-label')).toBe('r2c2, empty, candidates 4 6, removes 8')
+    renderBoard({ candidates, marks: [cellIndex(2, 2)], eliminated: [{ cell: cellIndex(2, 2), digits: [8] }, { cell: cellIndex(5, 5), digits: [3] }] })
+    expect(cell(2, 2)).toHaveAccessibleName('r2c2, empty, candidates 4 6, removes 8')
+    expect(cell(5, 5)).toHaveAccessibleName('r5c5, empty, removes 3')
+    expect(within(grid()).getByText('8')).toBeInTheDocument()
+    expect(within(grid()).getByText('3')).toBeInTheDocument()
+    // one stroke across each removed candidate
+    expect(shapes('line') - linesBefore).toBe(2)
   })
 
-  it('should mark focus with a fill and an inner ring, and reason with a fill and a hatch', () => {
-    const wrapper = board({ focus: [cellIndex(1, 2)], reasonCells: [cellIndex(1, 3)], reasonHouses: [{ kind: 'column', index: 8 }] })
+  it('should mark focus and reason cells in their names, and draw a ring and hatching (not colour alone)', async () => {
+    const view = renderBoard()
+    const before = { path: shapes('path'), rect: shapes('rect') }
+    await view.rerender(boardProps({ focus: [cellIndex(1, 2)], reasonCells: [cellIndex(1, 3)], reasonHouses: [{ kind: 'column', index: 8 }] }))
 
-    expect(cell(wrapper, 1, 2).classes()).toContain('grid-board__cell--focus')
-    expect(cell(wrapper, 1, 3).classes()).toContain('grid-board__cell--reason')
-    expect(cell(wrapper, 5, 9).classes()).toContain('grid-board__cell--reason')
-    expect(cell(wrapper, 1, 2).attributes('aria-label')).toContain('focus')
-    // Not colour alone: one inner ring for the focus cell, hatch overlays for the 1 + 9 reason cells.
-    expect(wrapper.findAll('.grid-board__focus-ring')).toHaveLength(1)
-    expect(wrapper.findAll('.grid-board__hatch')).toHaveLength(10)
-    expect(wrapper.findAll('.grid-board__house')).toHaveLength(1)
+    expect(cell(1, 2)).toHaveAccessibleName('r1c2, empty, focus')
+    expect(cell(1, 3)).toHaveAccessibleName('r1c3, empty, reason')
+    expect(cell(5, 9)).toHaveAccessibleName('r5c9, empty, reason')
+    expect(screen.getAllByRole('gridcell', { name: /, reason$/ })).toHaveLength(10)
+    // a hatch for each of the 1 + 9 reason cells; a ring inside the focus cell and one around the reason column
+    expect(shapes('path') - before.path).toBe(10)
+    expect(shapes('rect') - before.rect).toBe(2)
   })
 
-  it('should draw thermometers as a tube with a bulb on the first cell, under the digits', () => {
-    const wrapper = board({ thermometers: [[cellIndex(5, 5), cellIndex(5, 6), cellIndex(4, 7)]], reasonThermometers: [0] })
-    const tube = wrapper.find('.grid-board__tube')
-    expect(tube.attributes('d')).toBe('M450 450L550 450L650 350')
-    const bulb = wrapper.find('.grid-board__bulb')
-    expect([bulb.attributes('cx'), bulb.attributes('cy')]).toEqual(['450', '450'])
-    expect(wrapper.find('.grid-board__thermometer').classes()).toContain('is-reason')
-
-    const layers = wrapper.findAll('g').map((g) => g.classes().join(' '))
-    expect(layers.indexOf('grid-board__thermometers')).toBeLessThan(layers.indexOf('grid-board__digits'))
+  it('should draw thermometers through the cell centres, bulb first and under the digits, and read them out', () => {
+    renderBoard({ thermometers: [[cellIndex(5, 5), cellIndex(5, 6), cellIndex(4, 7)]], reasonThermometers: [0], digits: Object.assign(empty(), { [cellIndex(5, 6)]: 4 }) })
+    expect(grid()).toHaveAccessibleDescription('Thermometer 1: r5c5 (bulb), r5c6, r4c7, a reason for this step.')
+    // cells are 100 units wide, so r5c5's centre is (450, 450)
+    const tube = pathThrough('M450 450L550 450L650 350')
+    expect(tube).toBeDefined()
+    expect(tube!.compareDocumentPosition(within(grid()).getByText('4')) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy()
   })
 
-  it('should number the cells of a contradiction chain in order', () => {
-    const wrapper = board({ chain: [cellIndex(1, 1), cellIndex(1, 5), cellIndex(2, 5)] })
-    expect(wrapper.findAll('.grid-board__chain-number').map((t) => t.text())).toEqual(['1', '2', '3'])
-    expect(wrapper.find('.grid-board__chain-path').exists()).toBe(true)
+  it('should number the cells of a contradiction chain in order and read the chain out', () => {
+    renderBoard({ chain: [cellIndex(1, 1), cellIndex(1, 5), cellIndex(2, 5)] })
+    expect(grid()).toHaveAccessibleDescription('Chain in order: r1c1, r1c5, r2c5.')
+    for (const n of ['1', '2', '3']) expect(within(grid()).getByText(n)).toBeInTheDocument()
   })
 
-  it('should mark placed cells and problem cells', () => {
-    const wrapper = board({ placed: [cellIndex(1, 1)], errorCells: [cellIndex(3, 4)] })
-    expect(wrapper.findAll('.grid-board__placed-mark')).toHaveLength(1)
-    expect(cell(wrapper, 1, 1).attributes('aria-label')).toBe('r1c1, 5, placed now')
-    expect(cell(wrapper, 3, 4).classes()).toContain('grid-board__cell--error')
-    expect(wrapper.findAll('.grid-board__error-ring')).toHaveLength(1)
+  it('should have no description when nothing is drawn across cells', () => {
+    renderBoard()
+    expect(grid()).not.toHaveAttribute('aria-describedby')
+  })
+
+  it('should mark placed cells and problem cells, with a mark under the digit and a ring', async () => {
+    const view = renderBoard()
+    const before = { line: shapes('line'), rect: shapes('rect') }
+    await view.rerender(boardProps({ placed: [cellIndex(1, 1)], errorCells: [cellIndex(3, 4)] }))
+    expect(cell(1, 1)).toHaveAccessibleName('r1c1, 5, placed now')
+    expect(cell(3, 4)).toHaveAccessibleName('r3c4, given 7, problem')
+    expect(shapes('line') - before.line).toBe(1)
+    expect(shapes('rect') - before.rect).toBe(1)
   })
 
   it('should be focusable and point at the selected cell only when interactive', async () => {
-    const wrapper = board({ interactive: true, selected: cellIndex(3, 4) })
-    const grid = wrapper.find('[role="grid"]')
-    expect(grid.attributes('tabindex')).toBe('0')
-    expect(grid.attributes('aria-activedescendant')).toBe(cell(wrapper, 3, 4).attributes('id'))
-    expect(cell(wrapper, 3, 4).attributes('aria-selected')).toBe('true')
+    const view = renderBoard({ interactive: true, selected: cellIndex(3, 4) })
+    expect(grid()).toHaveAttribute('tabindex', '0')
+    expect(grid()).toHaveAttribute('aria-activedescendant', cell(3, 4).id)
+    expect(cell(3, 4)).toHaveAttribute('aria-selected', 'true')
+    expect(grid()).not.toHaveAttribute('aria-readonly')
 
-    await wrapper.setProps({ interactive: false })
-    expect(grid.attributes('tabindex')).toBeUndefined()
-    expect(grid.attributes('aria-activedescendant')).toBeUndefined()
+    await view.rerender(boardProps({ interactive: false, selected: cellIndex(3, 4) }))
+    expect(grid()).not.toHaveAttribute('tabindex')
+    expect(grid()).not.toHaveAttribute('aria-activedescendant')
+    expect(grid()).toHaveAttribute('aria-readonly', 'true')
   })
 
-  it('should emit cell and thermometer events from pointer input when interactive', async () => {
-    const wrapper = board({ interactive: true, thermometers: [[0, 1]] })
-    await cell(wrapper, 2, 2).trigger('pointerdown', { button: 0, pointerId: 1 })
-    await cell(wrapper, 2, 3).trigger('pointermove', { pointerId: 1 })
-    await cell(wrapper, 2, 3).trigger('pointerup', { pointerId: 1 })
-    expect(wrapper.emitted('cell-down')?.[0]?.[0]).toBe(cellIndex(2, 2))
-    expect(wrapper.emitted('cell-enter')).toEqual([[cellIndex(2, 3)]])
-    expect(wrapper.emitted('cell-up')).toEqual([[cellIndex(2, 3)]])
+  it('should report cells and thermometers under the pointer when interactive', async () => {
+    const view = renderBoard({ interactive: true, thermometers: [[0, 1]] })
+    await fireEvent.pointerDown(cell(2, 2), { button: 0, pointerId: 1 })
+    await fireEvent.pointerMove(cell(2, 3), { pointerId: 1 })
+    await fireEvent.pointerUp(cell(2, 3), { pointerId: 1 })
+    expect(view.emitted('cell-down')?.[0]?.[0]).toBe(cellIndex(2, 2))
+    expect(view.emitted('cell-enter')).toEqual([[cellIndex(2, 3)]])
+    expect(view.emitted('cell-up')).toEqual([[cellIndex(2, 3)]])
 
-    await wrapper.find('.grid-board__tube').trigger('pointerdown', { button: 0, pointerId: 2 })
-    await wrapper.find('.grid-board__tube').trigger('pointerup', { pointerId: 2 })
-    expect(wrapper.emitted('thermometer-click')).toEqual([[0]])
+    const tube = pathThrough('M50 50L150 50')!
+    await fireEvent.pointerDown(tube, { button: 0, pointerId: 2 })
+    await fireEvent.pointerUp(tube, { pointerId: 2 })
+    expect(view.emitted('thermometer-click')).toEqual([[0]])
   })
 
   it('should ignore pointer input when not interactive', async () => {
-    const wrapper = board({ thermometers: [[0, 1]] })
-    await cell(wrapper, 2, 2).trigger('pointerdown', { button: 0 })
-    await cell(wrapper, 2, 2).trigger('pointerup')
-    expect(wrapper.emitted('cell-down')).toBeUndefined()
-    expect(wrapper.emitted('cell-up')).toBeUndefined()
+    const view = renderBoard({ thermometers: [[0, 1]] })
+    await fireEvent.pointerDown(cell(2, 2), { button: 0 })
+    await fireEvent.pointerUp(cell(2, 2))
+    expect(view.emitted('cell-down')).toBeUndefined()
+    expect(view.emitted('cell-up')).toBeUndefined()
   })
 
   it('should keep the node count small with every cell pencil-marked', () => {
-    const candidates = new Array<number>(81).fill(mask(1, 2, 3, 4, 5, 6, 7, 8, 9))
-    const wrapper = board({ candidates, marks: Array.from({ length: 81 }, (_, i) => i) })
+    renderBoard({ candidates: new Array<number>(81).fill(ALL), marks: Array.from({ length: 81 }, (_, i) => i) })
     // The replay re-renders for every step: one <text> per cell for its marks, not one per candidate.
-    expect(wrapper.findAll('.grid-board__candidate')).toHaveLength(79)
-    expect(wrapper.findAll('text').length).toBeLessThan(100)
+    expect(within(grid()).getAllByText('123456789')).toHaveLength(79)
+    expect(shapes('text')).toBeLessThan(100)
   })
 
   it('should redraw only the cells a change touches, and keep every cell current', async () => {
-    const digits = empty()
-    const givens = empty()
-    digits[cellIndex(3, 4)] = 7
-    givens[cellIndex(3, 4)] = 1
-    const candidates = new Array<number>(81).fill(mask(1, 2, 3))
-    const wrapper = mount(GridBoard, { props: { digits, givens, thermometers: [], candidates, marks: [cellIndex(5, 5), cellIndex(9, 9)] } })
-    const rect = (r: number, c: number) => cell(wrapper, r, c).element
-    const untouched = rect(1, 1)
-    const given = wrapper.find('.grid-board__digit--given').element
+    const candidates = new Array<number>(81).fill(maskOf([1, 2, 3]))
+    const start = boardProps({ candidates, marks: [cellIndex(5, 5), cellIndex(9, 9)] })
+    start.digits = Object.assign(empty(), { [cellIndex(3, 4)]: 7 })
+    const view = render(GridBoard, { props: start })
+    const untouched = cell(1, 1)
+    const given = within(grid()).getByText('7')
 
     // The next step: r5c5 gets a 2, r9c9 loses a candidate and is the focus.
-    const next = [...digits]
-    next[cellIndex(5, 5)] = 2
     const fewer = [...candidates]
-    fewer[cellIndex(9, 9)] = mask(1, 3)
-    await wrapper.setProps({ digits: next, candidates: fewer, focus: [cellIndex(9, 9)], placed: [cellIndex(5, 5)] })
+    fewer[cellIndex(9, 9)] = maskOf([1, 3])
+    await view.rerender({ ...start, digits: Object.assign([...start.digits], { [cellIndex(5, 5)]: 2 }), candidates: fewer, focus: [cellIndex(9, 9)], placed: [cellIndex(5, 5)] })
 
-    expect(cell(wrapper, 5, 5).attributes('aria-label')).toBe('r5c5, 2, placed now')
-    expect(cell(wrapper, 9, 9).attributes('aria-label')).toBe('r9c9, empty, candidates 1 3, focus')
-    expect(cell(wrapper, 9, 9).classes()).toContain('grid-board__cell--focus')
-    expect(wrapper.findAll('.grid-board__digit--deduced').map((t) => t.text())).toEqual(['2'])
-    expect(wrapper.findAll('.grid-board__candidate').map((t) => t.text())).toEqual(['13'])
+    expect(cell(5, 5)).toHaveAccessibleName('r5c5, 2, placed now')
+    expect(cell(9, 9)).toHaveAccessibleName('r9c9, empty, candidates 1 3, focus')
+    expect(within(grid()).getByText('2')).toBeInTheDocument()
+    expect(within(grid()).getByText('13')).toBeInTheDocument()
+    expect(within(grid()).queryByText('123')).not.toBeInTheDocument()
     // Cells the step didn't touch keep their elements.
-    expect(rect(1, 1)).toBe(untouched)
-    expect(wrapper.find('.grid-board__digit--given').element).toBe(given)
+    expect(cell(1, 1)).toBe(untouched)
+    expect(within(grid()).getByText('7')).toBe(given)
 
     // And back: nothing stale is left behind.
-    await wrapper.setProps({ digits, candidates, focus: [], placed: [] })
-    expect(cell(wrapper, 5, 5).attributes('aria-label')).toBe('r5c5, empty, candidates 1 2 3')
-    expect(cell(wrapper, 9, 9).classes()).toContain('grid-board__cell--plain')
-    expect(wrapper.findAll('.grid-board__digit--deduced')).toHaveLength(0)
-    expect(wrapper.findAll('.grid-board__candidate').map((t) => t.text())).toEqual(['123', '123'])
+    await view.rerender({ ...start, focus: [], placed: [] })
+    expect(cell(5, 5)).toHaveAccessibleName('r5c5, empty, candidates 1 2 3')
+    expect(cell(9, 9)).toHaveAccessibleName('r9c9, empty, candidates 1 2 3')
+    expect(within(grid()).queryByText('2')).not.toBeInTheDocument()
+    expect(within(grid()).getAllByText('123')).toHaveLength(2)
   })
 })
