@@ -4,7 +4,8 @@
  * cell where two solutions still differ until the solution is unique, then (optionally) givens
  * removed again while it stays unique.
  */
-import { cellName, validatePuzzle } from '../../shared/engine/index'
+import { validatePuzzle } from '../../shared/engine/index'
+import { cellName, gridString, kingAdjacent } from '../../shared/grid'
 
 export interface GeneratedPuzzle {
   seed: number
@@ -45,7 +46,7 @@ export function generateThermo(seed: number, options: GenerateOptions = {}): Gen
   const paths = randomThermometers(rnd, solution, count, options.minLength ?? 3, options.maxLength ?? 7, options.shareChance ?? 0.15)
   const thermometers = paths.map((p) => p.map(cellName))
   const givens = uniqueGivens(rnd, solution, thermometers, new Array<number>(81).fill(0), options.minimize ?? true)
-  return { seed, title: `Generated thermometer puzzle, seed ${seed}`, givens: givensString(givens), thermometers, solution: solution.join('') }
+  return { seed, title: `Generated thermometer puzzle, seed ${seed}`, givens: gridString(givens), thermometers, solution: solution.join('') }
 }
 
 /** A full random solution grid (81 digits) from a seed. */
@@ -60,7 +61,7 @@ export function randomSolution(seed: number): number[] {
 export function uniqueGivens(rnd: () => number, solution: number[], thermometers: string[][], start: number[], minimize: boolean, keepOpen: ReadonlySet<number> = new Set()): number[] {
   const givens = start.slice()
   const fixed = new Set(start.map((d, c) => (d ? c : -1)).filter((c) => c >= 0))
-  const asPuzzle = () => ({ title: 'generated', givens: givensString(givens), thermometers })
+  const asPuzzle = () => ({ title: 'generated', givens: gridString(givens), thermometers })
   for (;;) {
     const errors = validatePuzzle(asPuzzle())
     if (!errors.length) break
@@ -82,10 +83,6 @@ export function uniqueGivens(rnd: () => number, solution: number[], thermometers
     }
   }
   return givens
-}
-
-function givensString(givens: number[]): string {
-  return givens.map((d) => (d ? String(d) : '.')).join('')
 }
 
 function randomGrid(rnd: () => number): number[] {
@@ -138,16 +135,9 @@ function randomThermometers(rnd: () => number, solution: number[], count: number
   return out
 }
 
+/** Cells touching `cell` by a side or a corner, in reading order. */
 function neighbours(cell: number): number[] {
-  const r = Math.floor(cell / 9)
-  const c = cell % 9
-  const out: number[] = []
-  for (let dr = -1; dr <= 1; dr++) for (let dc = -1; dc <= 1; dc++) {
-    const rr = r + dr
-    const cc = c + dc
-    if ((dr || dc) && rr >= 0 && rr < 9 && cc >= 0 && cc < 9) out.push(rr * 9 + cc)
-  }
-  return out
+  return Array.from({ length: 81 }, (_, c) => c).filter((c) => kingAdjacent(cell, c))
 }
 
 function shuffle<T>(rnd: () => number, list: T[]): T[] {
