@@ -186,34 +186,25 @@ export function applyEdit(outline: Outline, edit: unknown): Outline {
     throw new Error(`invalid edit: ${issue.path.join('.') || 'edit'}: ${issue.message}`)
   }
   const e: OutlineEdit = parsed.data
-  switch (e.op) {
-    case 'editLineText':
-      return editLineText(outline, e.lineId, e.text)
-    case 'revertLineText':
-      return revertLineText(outline, e.lineId)
-    case 'foldLines':
-      return foldLines(outline, e.lineIds)
-    case 'splitLine':
-      return splitLine(outline, e.lineId)
-    case 'hideLine':
-      return hideLine(outline, e.lineId)
-    case 'showLine':
-      return showLine(outline, e.lineId)
-    case 'startChapterAt':
-      return startChapterAt(outline, e.lineId, e.title)
-    case 'renameChapter':
-      return renameChapter(outline, e.lineId, e.title)
-    case 'removeChapter':
-      return removeChapter(outline, e.lineId)
-    case 'setPace':
-      return setPace(outline, e.pace)
-    case 'setNames':
-      return setNames(outline, e.names)
-    case 'setTarget':
-      return setTarget(outline, e.targetMs)
-    case 'alignLine':
-      return alignLine(outline, e.lineId, e.startMs)
-  }
+  // TypeScript can't tie APPLY[e.op] to the narrowed edit; APPLY's own type keeps each entry honest.
+  return (APPLY[e.op] as (o: Outline, e: OutlineEdit) => Outline)(outline, e)
+}
+
+/** One entry per edit the schema allows, so a new edit fails to compile until it runs here. */
+const APPLY: { readonly [Op in OutlineEdit['op']]: (o: Outline, e: Extract<OutlineEdit, { op: Op }>) => Outline } = {
+  editLineText: (o, e) => editLineText(o, e.lineId, e.text),
+  revertLineText: (o, e) => revertLineText(o, e.lineId),
+  foldLines: (o, e) => foldLines(o, e.lineIds),
+  splitLine: (o, e) => splitLine(o, e.lineId),
+  hideLine: (o, e) => hideLine(o, e.lineId),
+  showLine: (o, e) => showLine(o, e.lineId),
+  startChapterAt: (o, e) => startChapterAt(o, e.lineId, e.title),
+  renameChapter: (o, e) => renameChapter(o, e.lineId, e.title),
+  removeChapter: (o, e) => removeChapter(o, e.lineId),
+  setPace: (o, e) => setPace(o, e.pace),
+  setNames: (o, e) => setNames(o, e.names),
+  setTarget: (o, e) => setTarget(o, e.targetMs),
+  alignLine: (o, e) => alignLine(o, e.lineId, e.startMs),
 }
 
 function indexOf(outline: Outline, lineId: number): number {
