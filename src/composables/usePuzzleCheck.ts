@@ -30,7 +30,7 @@ export function checkStatusText(status: PuzzleCheck): string {
 }
 
 /** Runs the shared engine's validation (the exact solver counts to 2 at most) on a grid. */
-export function checkPuzzle(givens: ArrayLike<number>, thermometers: number[][]): PuzzleCheckResult {
+function checkPuzzle(givens: ArrayLike<number>, thermometers: number[][]): PuzzleCheckResult {
   const problems = validatePuzzle({ title: 'Draft', givens: Array.from(givens), thermometers })
   if (!problems.length) return { status: 'unique', problems }
   const codes = new Set(problems.map((p) => p.code))

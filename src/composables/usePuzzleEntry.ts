@@ -14,7 +14,7 @@ export interface PuzzleEntryOptions {
 }
 
 /** The longest thermometer the rules allow: digits strictly rise along it. */
-export const MAX_THERMOMETER = 9
+const MAX_THERMOMETER = 9
 const UNDO_LIMIT = 200
 
 /**
