@@ -8,10 +8,11 @@ import type { Config } from './config'
 import type { Db } from './db/knex'
 import { createLogger, type AppLogger } from './logger'
 import { errorHandler, unknownRoute } from './middleware/error-handler'
-import { authRoutes } from './routes/auth'
-import { channelRoutes } from './routes/channels'
-import { outlineRoutes } from './routes/outlines'
-import { puzzleRoutes } from './routes/puzzles'
+import { authEndpoints } from './routes/auth'
+import { channelEndpoints } from './routes/channels'
+import { endpointTable } from './routes/endpoint'
+import { outlineEndpoints } from './routes/outlines'
+import { puzzleEndpoints } from './routes/puzzles'
 import { createEnginePool, type EnginePool } from './workers/engine-pool'
 
 export interface AppDeps {
@@ -29,6 +30,7 @@ const DEFAULT_CLIENT_DIR = fileURLToPath(new URL('../dist', import.meta.url))
 /** Builds the Express app without listening, so tests can drive it with supertest. */
 export function createApp({ db, config, logger, engine, clientDir = DEFAULT_CLIENT_DIR }: AppDeps): Express {
   const app = express()
+  logger ??= createLogger(config.log.level)
   engine ??= createEnginePool({ ...config.engine, logger })
   const passport = createPassport(db, config.auth.jwtSecret)
 
@@ -37,7 +39,7 @@ export function createApp({ db, config, logger, engine, clientDir = DEFAULT_CLIE
   app.use(helmet({ contentSecurityPolicy: { directives: { upgradeInsecureRequests: null } } }))
   app.use(
     pinoHttp({
-      logger: logger ?? createLogger(config.log.level),
+      logger,
       autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
       // one short line per request: never headers (they carry tokens)
       serializers: {
@@ -48,11 +50,12 @@ export function createApp({ db, config, logger, engine, clientDir = DEFAULT_CLIE
   )
   app.use(express.json({ limit: '1mb' }))
 
-  app.use('/api/auth', authRoutes(db, config, passport))
-  // before the channel router, whose router-wide requireUser would otherwise check every token twice
-  app.use('/api/channels/:channelId/puzzles', puzzleRoutes(db, passport, engine))
-  app.use('/api/channels/:channelId', outlineRoutes(db, passport, engine))
-  app.use('/api/channels', channelRoutes(db, passport))
+  // the route table: every API endpoint goes through it, so listEndpoints(app) knows them all
+  const api = endpointTable(app, '/api', { db, passport })
+  authEndpoints(api, db, config)
+  channelEndpoints(api, db)
+  puzzleEndpoints(api, db, engine)
+  outlineEndpoints(api, db, engine)
   app.use('/api', unknownRoute)
 
   if (existsSync(clientDir)) {

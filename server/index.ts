@@ -4,11 +4,15 @@ import { createDb } from './db/knex'
 import { createLogger } from './logger'
 import { createEnginePool } from './workers/engine-pool'
 
+// start-up messages are for the person at the terminal: plain lines, not JSON log records
+const say = (text: string) => process.stdout.write(`${text}\n`)
+const complain = (text: string) => process.stderr.write(`${text}\n`)
+
 let config
 try {
   config = loadConfig()
 } catch (error) {
-  console.error((error as Error).message)
+  complain((error as Error).message)
   process.exit(1)
 }
 
@@ -21,12 +25,12 @@ const app = createApp({ db, config, logger, engine })
 const server = app.listen(config.http.port, config.http.host, (error?: Error) => {
   if (error) {
     const inUse = (error as NodeJS.ErrnoException).code === 'EADDRINUSE'
-    console.error(inUse ? `\n  Port ${config.http.port} is already in use: stop what uses it, or set PORT to another port.\n` : `\n  Gridcue could not start: ${error.message}\n`)
+    complain(inUse ? `\n  Port ${config.http.port} is already in use: stop what uses it, or set PORT to another port.\n` : `\n  Gridcue could not start: ${error.message}\n`)
     process.exit(1)
   }
   const address = server.address()
   const port = typeof address === 'object' && address ? address.port : config.http.port
-  console.log(`\n  Gridcue is running at http://${config.http.host}:${port}/\n`)
+  say(`\n  Gridcue is running at http://${config.http.host}:${port}/\n`)
 })
 
 async function shutdown(signal: string) {

@@ -1,7 +1,7 @@
 import bcrypt from 'bcryptjs'
 
 /** bcrypt cost: 12 rounds ≈ 0.2 s here, slow enough to resist guessing, quick enough to sign in. */
-export const BCRYPT_COST = 12
+const BCRYPT_COST = 12
 
 export const hashPassword = (password: string) => bcrypt.hash(password, BCRYPT_COST)
 

@@ -21,7 +21,7 @@ export interface ChannelRow {
   updated_at: Date
 }
 
-export interface MembershipRow {
+interface MembershipRow {
   user_id: number
   channel_id: number
   role: Role

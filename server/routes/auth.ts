@@ -1,15 +1,12 @@
-import { Router } from 'express'
 import { ipKeyGenerator, rateLimit } from 'express-rate-limit'
-import { signInSchema, type SignInInput } from '../../shared/schemas/auth'
-import { requireUser } from '../auth/require-user'
+import { signInSchema } from '../../shared/schemas/auth'
 import type { Config } from '../config'
 import type { Db } from '../db/knex'
 import { HttpError } from '../errors'
-import { validate } from '../middleware/validate'
 import { describeMe, signIn } from '../services/auth'
-import type { JwtPassport } from '../auth/passport'
+import type { EndpointTable } from './endpoint'
 
-export function authRoutes(db: Db, config: Config, passport: JwtPassport): Router {
+export function authEndpoints(api: EndpointTable, db: Db, config: Config): void {
   // per address and e-mail, so one guessed account can't lock out a whole office behind one address
   const signInLimit = rateLimit({
     windowMs: 15 * 60 * 1000,
@@ -22,12 +19,6 @@ export function authRoutes(db: Db, config: Config, passport: JwtPassport): Route
       next(new HttpError(429, 'too-many-attempts', 'Too many sign-in attempts. Please wait 15 minutes and try again.')),
   })
 
-  const router = Router()
-  router.post('/sign-in', signInLimit, validate({ body: signInSchema }), async (_req, res) => {
-    res.json(await signIn(db, config.auth, res.locals.body as SignInInput))
-  })
-  router.get('/me', requireUser(passport), async (req, res) => {
-    res.json(await describeMe(db, req.user!))
-  })
-  return router
+  api.addPublic({ method: 'post', path: '/auth/sign-in', body: signInSchema, before: [signInLimit] }, ({ body }) => signIn(db, config.auth, body))
+  api.add({ method: 'get', path: '/auth/me', access: 'signed-in' }, ({ user }) => describeMe(db, user))
 }

@@ -1,56 +1,30 @@
-import { Router } from 'express'
-import { cueSheetQuerySchema, outlineCreateSchema, outlineSaveSchema, type CueSheetQuery, type OutlineCreate, type OutlineSave } from '../../shared/schemas/studio'
-import type { JwtPassport } from '../auth/passport'
-import { requireRole, STUDIO_MAKERS, STUDIO_TEAM } from '../auth/require-role'
-import { requireUser } from '../auth/require-user'
+import { cueSheetQuerySchema, outlineCreateSchema, outlineSaveSchema } from '../../shared/schemas/studio'
 import type { Db } from '../db/knex'
-import { idParams, validate } from '../middleware/validate'
 import { cueSheetOf } from '../services/cue-sheets'
 import { duplicateOutline, makeOutline, outlineOf, outlinesOf, removeOutline, saveOutline } from '../services/outlines'
 import type { Engine } from '../workers/engine-pool'
+import { Download, type EndpointTable } from './endpoint'
 
-type PuzzleParams = { channelId: number; puzzleId: number }
-type OutlineParams = { channelId: number; outlineId: number }
+const takes = '/channels/:channelId/puzzles/:puzzleId/outlines'
+const outline = '/channels/:channelId/outlines/:outlineId'
 
-/** Mounted at /api/channels/:channelId: a puzzle's outlines, and each outline by its id. */
-export function outlineRoutes(db: Db, passport: JwtPassport, engine: Engine): Router {
-  const router = Router({ mergeParams: true })
-  const signedIn = requireUser(passport)
-  const team = requireRole(db, STUDIO_TEAM)
-  const makers = requireRole(db, STUDIO_MAKERS)
-  const puzzle = idParams('channelId', 'puzzleId')
-  const outline = idParams('channelId', 'outlineId')
-
-  router.get('/puzzles/:puzzleId/outlines', signedIn, team, validate({ params: puzzle }), async (_req, res) => {
-    const { channelId, puzzleId } = res.locals.params as PuzzleParams
-    res.json(await outlinesOf(db, channelId, puzzleId))
+/** A puzzle's outlines (takes), and each outline by its id within the channel. */
+export function outlineEndpoints(api: EndpointTable, db: Db, engine: Engine): void {
+  api.add({ method: 'get', path: takes, access: 'outline.read' }, ({ params }) => outlinesOf(db, params.channelId, params.puzzleId))
+  api.add({ method: 'post', path: takes, access: 'outline.create', body: outlineCreateSchema, status: 201 }, ({ params, body, user }) =>
+    makeOutline(db, engine, params.channelId, params.puzzleId, body, user),
+  )
+  api.add({ method: 'get', path: outline, access: 'outline.read' }, ({ params }) => outlineOf(db, params.channelId, params.outlineId))
+  // editors edit the lines of a take; making and removing takes is for owners and presenters
+  api.add({ method: 'patch', path: outline, access: 'outline.edit', body: outlineSaveSchema }, ({ params, body }) =>
+    saveOutline(db, params.channelId, params.outlineId, body),
+  )
+  api.add({ method: 'get', path: `${outline}/cue-sheet.pdf`, access: 'outline.read', query: cueSheetQuerySchema }, async ({ params, query }) => {
+    const { filename, pdf } = await cueSheetOf(db, params.channelId, params.outlineId, query.thumbnails)
+    return new Download(filename, 'application/pdf', pdf)
   })
-  router.post('/puzzles/:puzzleId/outlines', signedIn, makers, validate({ params: puzzle, body: outlineCreateSchema }), async (req, res) => {
-    const { channelId, puzzleId } = res.locals.params as PuzzleParams
-    res.status(201).json(await makeOutline(db, engine, channelId, puzzleId, res.locals.body as OutlineCreate, req.user!))
-  })
-  router.get('/outlines/:outlineId', signedIn, team, validate({ params: outline }), async (_req, res) => {
-    const { channelId, outlineId } = res.locals.params as OutlineParams
-    res.json(await outlineOf(db, channelId, outlineId))
-  })
-  router.patch('/outlines/:outlineId', signedIn, team, validate({ params: outline, body: outlineSaveSchema }), async (_req, res) => {
-    const { channelId, outlineId } = res.locals.params as OutlineParams
-    res.json(await saveOutline(db, channelId, outlineId, res.locals.body as OutlineSave))
-  })
-  router.get('/outlines/:outlineId/cue-sheet.pdf', signedIn, team, validate({ params: outline, query: cueSheetQuerySchema }), async (_req, res) => {
-    const { channelId, outlineId } = res.locals.params as OutlineParams
-    const { thumbnails } = res.locals.query as CueSheetQuery
-    const { filename, pdf } = await cueSheetOf(db, channelId, outlineId, thumbnails)
-    res.type('application/pdf').attachment(filename).send(pdf)
-  })
-  router.post('/outlines/:outlineId/duplicate', signedIn, makers, validate({ params: outline }), async (req, res) => {
-    const { channelId, outlineId } = res.locals.params as OutlineParams
-    res.status(201).json(await duplicateOutline(db, channelId, outlineId, req.user!))
-  })
-  router.delete('/outlines/:outlineId', signedIn, makers, validate({ params: outline }), async (_req, res) => {
-    const { channelId, outlineId } = res.locals.params as OutlineParams
-    await removeOutline(db, channelId, outlineId)
-    res.status(204).end()
-  })
-  return router
+  api.add({ method: 'post', path: `${outline}/duplicate`, access: 'outline.create', status: 201 }, ({ params, user }) =>
+    duplicateOutline(db, params.channelId, params.outlineId, user),
+  )
+  api.add({ method: 'delete', path: outline, access: 'outline.create' }, ({ params }) => removeOutline(db, params.channelId, params.outlineId))
 }

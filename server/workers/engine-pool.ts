@@ -23,7 +23,7 @@ export interface EnginePoolOptions {
   timeoutMs: number
   /** an idle thread ends after this long; the next task starts a new one */
   idleTimeoutMs?: number
-  logger?: AppLogger
+  logger: AppLogger
 }
 
 // same extension as this file: .ts under tsx or vitest, .js if the server is ever compiled
@@ -48,7 +48,7 @@ export function createEnginePool({ threads, timeoutMs, idleTimeoutMs = 60_000, l
       execArgv: TASK_FILE.pathname.endsWith('.ts') ? ['--import', TSX_PRELOAD.href] : undefined,
     })
     // a thread that fails outside a task (e.g. its file doesn't load) would otherwise crash the process
-    created.on('error', (err) => (logger ? logger.error({ err }, 'engine thread failed') : console.error('engine thread failed', err)))
+    created.on('error', (err) => logger.error({ err }, 'engine thread failed'))
     return created
   }
 

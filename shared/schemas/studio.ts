@@ -1,19 +1,18 @@
 /**
  * Wire contract of the studio API: puzzles under a channel and their outlines (several takes each).
- * Routes (all JSON, all under /api/channels/:channelId):
- *   GET    /puzzles                          owner, presenter, editor  → PuzzleSummary[]
- *   POST   /puzzles                          owner, presenter          → PuzzleRecord (201)
- *   GET    /puzzles/:puzzleId                owner, presenter, editor  → PuzzleRecord
- *   PUT    /puzzles/:puzzleId                owner, presenter          body PuzzleUpdate → PuzzleRecord; stale version → 409 StaleBody
- *   DELETE /puzzles/:puzzleId                owner, presenter          → 204
- *   GET    /puzzles/:puzzleId/outlines       owner, presenter, editor  → OutlineSummary[]
- *   POST   /puzzles/:puzzleId/outlines       owner, presenter          body OutlineCreate → OutlineRecord (201); engine runs in a worker pool
- *   GET    /outlines/:outlineId              owner, presenter, editor  → OutlineRecord
- *   PATCH  /outlines/:outlineId              owner, presenter, editor  body OutlineSave → OutlineRecord; stale version → 409 StaleBody
- *   GET    /outlines/:outlineId/cue-sheet.pdf owner, presenter, editor ?thumbnails=1 → the printable cue sheet (PDF)
- *   POST   /outlines/:outlineId/duplicate    owner, presenter          → OutlineRecord (201)
- *   DELETE /outlines/:outlineId              owner, presenter          → 204
- * Viewers see puzzles only through published episodes (later work).
+ * Routes (all JSON, all under /api/channels/:channelId), each with the action (shared/permissions.ts) it needs:
+ *   GET    /puzzles                           puzzle.read     → PuzzleSummary[]
+ *   POST   /puzzles                           puzzle.edit     → PuzzleRecord (201)
+ *   GET    /puzzles/:puzzleId                 puzzle.read     → PuzzleRecord
+ *   PUT    /puzzles/:puzzleId                 puzzle.edit     body PuzzleUpdate → PuzzleRecord; stale version → 409 StaleBody
+ *   DELETE /puzzles/:puzzleId                 puzzle.edit     → 204
+ *   GET    /puzzles/:puzzleId/outlines        outline.read    → OutlineSummary[]
+ *   POST   /puzzles/:puzzleId/outlines        outline.create  body OutlineCreate → OutlineRecord (201); engine runs in a worker pool
+ *   GET    /outlines/:outlineId               outline.read    → OutlineRecord
+ *   PATCH  /outlines/:outlineId               outline.edit    body OutlineSave → OutlineRecord; stale version → 409 StaleBody
+ *   GET    /outlines/:outlineId/cue-sheet.pdf outline.read    ?thumbnails=1 → the printable cue sheet (PDF)
+ *   POST   /outlines/:outlineId/duplicate     outline.create  → OutlineRecord (201)
+ *   DELETE /outlines/:outlineId               outline.create  → 204
  */
 import { z } from 'zod'
 import { puzzleFileShape } from './puzzle'
@@ -34,7 +33,7 @@ export const puzzleUpdateSchema = puzzleDraftSchema.extend({ version: z.int().mi
 export type PuzzleUpdate = z.infer<typeof puzzleUpdateSchema>
 
 /** The engine's verdict on the saved givens and thermometers. */
-export const puzzleCheckSchema = z.enum(['unique', 'no-solution', 'multiple-solutions', 'invalid'])
+const puzzleCheckSchema = z.enum(['unique', 'no-solution', 'multiple-solutions', 'invalid'])
 export type PuzzleCheck = z.infer<typeof puzzleCheckSchema>
 
 export const puzzleSummarySchema = z.object({
@@ -100,7 +99,6 @@ export const cueSheetQuerySchema = z.object({
     .optional()
     .transform((v) => v === '1'),
 })
-export type CueSheetQuery = z.infer<typeof cueSheetQuerySchema>
 
 /** Body of a 409: the copy now on the server, so the client can show both versions. */
 export interface StaleBody<T> {

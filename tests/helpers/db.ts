@@ -14,11 +14,9 @@ export async function openTestDb(): Promise<Db> {
 }
 
 /** Empties every application table (not knex's own bookkeeping). */
-export async function truncateAll(db: Db): Promise<void> {
-  const rows: { tablename: string }[] = (
-    await db.raw("select tablename from pg_tables where schemaname = 'public' and tablename not like 'knex_%'")
-  ).rows
-  if (rows.length) await db.raw(`truncate ${rows.map((r) => `"${r.tablename}"`).join(', ')} restart identity cascade`)
+async function truncateAll(db: Db): Promise<void> {
+  const tables = await appTables(db)
+  if (tables.length) await db.raw(`truncate ${quoted(tables)} restart identity cascade`)
 }
 
 /** Fresh tables with the demo channel and its four people (one per role). */
@@ -26,3 +24,59 @@ export async function resetWithDemo(db: Db): Promise<void> {
   await truncateAll(db)
   await seedDemo(db)
 }
+
+export interface Baseline {
+  /** puts every application table back as it was saved, ids and id sequences included */
+  restore: () => Promise<void>
+  drop: () => Promise<void>
+}
+
+// a schema of its own beside the application's, so the saved rows keep their exact column types
+const BASELINE_SCHEMA = 'test_baseline'
+
+/**
+ * Saves the rows of every application table, so each test can start from the same data: cheaper than
+ * seeding again (no password hashing, no engine runs) and it keeps the ids tests hold on to.
+ */
+export async function saveBaseline(db: Db): Promise<Baseline> {
+  const tables = await parentsFirst(db, await appTables(db))
+  await db.raw(`drop schema if exists ${BASELINE_SCHEMA} cascade`)
+  await db.raw(`create schema ${BASELINE_SCHEMA}`)
+  for (const table of tables) await db.raw(`create table ${BASELINE_SCHEMA}."${table}" as table public."${table}"`)
+  await db.raw(`create table ${BASELINE_SCHEMA}.sequences as select sequencename, last_value from pg_sequences where schemaname = 'public'`)
+  return {
+    restore: () =>
+      db.transaction(async (trx) => {
+        await trx.raw(`truncate ${quoted(tables)} restart identity cascade`)
+        for (const table of tables) await trx.raw(`insert into public."${table}" overriding system value select * from ${BASELINE_SCHEMA}."${table}"`)
+        await trx.raw(`select setval(format('public.%I', sequencename), last_value) from ${BASELINE_SCHEMA}.sequences where last_value is not null`)
+      }),
+    drop: async () => {
+      await db.raw(`drop schema if exists ${BASELINE_SCHEMA} cascade`)
+    },
+  }
+}
+
+async function appTables(db: Db): Promise<string[]> {
+  const { rows } = await db.raw<{ rows: { tablename: string }[] }>(
+    "select tablename from pg_tables where schemaname = 'public' and tablename not like 'knex_%' order by tablename",
+  )
+  return rows.map((r) => r.tablename)
+}
+
+/** Tables ordered so that every table comes after the tables its foreign keys point to. */
+async function parentsFirst(db: Db, tables: string[]): Promise<string[]> {
+  const { rows: keys } = await db.raw<{ rows: { child: string; parent: string }[] }>(
+    "select conrelid::regclass::text as child, confrelid::regclass::text as parent from pg_constraint where contype = 'f' and connamespace = 'public'::regnamespace",
+  )
+  const ordered: string[] = []
+  const visit = (table: string, path: string[]) => {
+    if (ordered.includes(table) || path.includes(table)) return
+    for (const { child, parent } of keys) if (child === table) visit(parent, [...path, table])
+    ordered.push(table)
+  }
+  for (const table of tables) visit(table, [])
+  return ordered
+}
+
+const quoted = (tables: string[]) => tables.map((t) => `"${t}"`).join(', ')

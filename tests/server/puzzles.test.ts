@@ -1,75 +1,11 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Express } from 'express'
-import type { Db } from '../../server/db/knex'
-import { ACTORS, demoEmail, openApiSuite, type Actor, type ApiSuite } from '../helpers/api'
-import { draftOf, fixture, otherChannelOfOwner, postPuzzle, send, withoutSolution } from '../helpers/studio'
+import { describe, expect, it } from 'vitest'
+import { useApiSuite } from '../helpers/api'
+import { draftOf, fixture, withoutSolution } from '../helpers/studio'
 
-let suite: ApiSuite
-let db: Db
-let app: Express
-let tokens: ApiSuite['tokens']
-let channelId: number
-beforeAll(async () => {
-  suite = await openApiSuite()
-  ;({ db, app, tokens, channelId } = suite)
-})
-afterAll(() => suite.close())
-
-const as = (actor: Actor) => ({
-  get: (path: string) => send(app, tokens, actor, 'get', path),
-  post: (path: string, body: object) => send(app, tokens, actor, 'post', path, body),
-  put: (path: string, body: object) => send(app, tokens, actor, 'put', path, body),
-  delete: (path: string) => send(app, tokens, actor, 'delete', path),
-})
-const puzzles = () => `/api/channels/${channelId}/puzzles`
-const create = (id = 'PE01', extra = {}) => postPuzzle(app, tokens.owner!, channelId, draftOf(id, extra))
-
-describe('role matrix', () => {
-  const matrix: { label: string; expected: Record<Actor, number>; call: (actor: Actor) => Promise<{ status: number }> }[] = [
-    {
-      label: 'GET /puzzles',
-      expected: { anonymous: 401, viewer: 403, editor: 200, presenter: 200, owner: 200 },
-      call: (actor) => as(actor).get(puzzles()),
-    },
-    {
-      label: 'POST /puzzles',
-      expected: { anonymous: 401, viewer: 403, editor: 403, presenter: 201, owner: 201 },
-      call: (actor) => as(actor).post(puzzles(), draftOf('PE01')),
-    },
-    {
-      label: 'GET /puzzles/:puzzleId',
-      expected: { anonymous: 401, viewer: 403, editor: 200, presenter: 200, owner: 200 },
-      call: async (actor) => as(actor).get(`${puzzles()}/${(await create()).id}`),
-    },
-    {
-      label: 'PUT /puzzles/:puzzleId',
-      expected: { anonymous: 401, viewer: 403, editor: 403, presenter: 200, owner: 200 },
-      call: async (actor) => {
-        const { id, version } = await create()
-        return as(actor).put(`${puzzles()}/${id}`, { ...draftOf('PE01'), title: `Renamed by ${actor}`, version })
-      },
-    },
-    {
-      label: 'DELETE /puzzles/:puzzleId',
-      expected: { anonymous: 401, viewer: 403, editor: 403, presenter: 204, owner: 204 },
-      call: async (actor) => as(actor).delete(`${puzzles()}/${(await create()).id}`),
-    },
-  ]
-  for (const { label, expected, call } of matrix) {
-    for (const actor of ACTORS) {
-      it(`${label} as ${actor} → ${expected[actor]}`, async () => {
-        expect((await call(actor)).status).toBe(expected[actor])
-      })
-    }
-  }
-
-  it('should answer 404 to the demo people for a channel they are not in', async () => {
-    const [{ id }] = await db('channels').insert({ name: 'Closed Room', slug: 'closed-room' }).returning('id')
-    const res = await as('owner').get(`/api/channels/${id}/puzzles`)
-    expect(res.status).toBe(404)
-    expect(res.body.message).toBe('Channel not found')
-  })
-})
+const api = useApiSuite()
+const as = api.as
+const puzzles = () => `/api/channels/${api.channelId}/puzzles`
+const create = (id = 'PE01', extra = {}) => api.createPuzzle(draftOf(id, extra))
 
 describe('POST /api/channels/:channelId/puzzles', () => {
   it('should save a classic puzzle as unique with its solution, and fill in the optional fields', async () => {
@@ -77,7 +13,7 @@ describe('POST /api/channels/:channelId/puzzles', () => {
     expect(res.status).toBe(201)
     expect(res.body).toEqual({
       id: expect.any(Number),
-      channelId,
+      channelId: api.channelId,
       title: 'Project Euler 96 Grid 01',
       author: '',
       check: 'unique',
@@ -91,9 +27,9 @@ describe('POST /api/channels/:channelId/puzzles', () => {
       notes: '',
       problems: [],
     })
-    const row = await db('puzzles').where({ id: res.body.id }).first()
+    const row = await api.db('puzzles').where({ id: res.body.id }).first()
     expect(row!.solution).toBe(fixture('PE01').solution)
-    expect(row!.created_by).toBe((await db('users').where({ email: demoEmail('presenter') }).first())!.id)
+    expect(row!.created_by).toBe(api.user('presenter').id)
   })
 
   it('should save a thermometer puzzle as unique, with cell names in lower case and 0 read as empty', async () => {
@@ -118,7 +54,7 @@ describe('POST /api/channels/:channelId/puzzles', () => {
       publishedOn: '2026-11-30',
       notes: 'Break-in on the long thermometer.',
     })
-    expect((await db('puzzles').where({ id: res.body.id }).first())!.solution).toBe(gt.solution)
+    expect((await api.db('puzzles').where({ id: res.body.id }).first())!.solution).toBe(gt.solution)
   })
 
   it('should save a draft with more than one solution, naming two cells where solutions differ', async () => {
@@ -126,7 +62,7 @@ describe('POST /api/channels/:channelId/puzzles', () => {
     expect(res.status).toBe(201)
     expect(res.body.check).toBe('multiple-solutions')
     expect(res.body.problems).toEqual([{ code: 'multiple-solutions', message: expect.stringMatching(/more than one solution/), cells: [expect.any(Number), expect.any(Number)] }])
-    expect((await db('puzzles').where({ id: res.body.id }).first())!.solution).toBeNull()
+    expect((await api.db('puzzles').where({ id: res.body.id }).first())!.solution).toBeNull()
   })
 
   it('should save a draft without a solution', async () => {
@@ -177,7 +113,7 @@ describe('GET /api/channels/:channelId/puzzles', () => {
     expect(ids.indexOf(newer.id)).toBeLessThan(ids.indexOf(older.id))
     expect(res.body.find((p: { id: number }) => p.id === newer.id)).toEqual({
       id: newer.id,
-      channelId,
+      channelId: api.channelId,
       title: newer.title,
       author: '',
       check: 'unique',
@@ -202,8 +138,8 @@ describe('GET /api/channels/:channelId/puzzles/:puzzleId', () => {
   })
 
   it('should answer 404 for a puzzle of another channel, even to its owner', async () => {
-    const elsewhere = await otherChannelOfOwner(db, demoEmail('owner'))
-    const foreign = await postPuzzle(app, tokens.owner!, elsewhere, draftOf('PE03'))
+    const elsewhere = await api.ownersOtherChannel()
+    const foreign = await api.createPuzzle(draftOf('PE03'), elsewhere)
     const path = `${puzzles()}/${foreign.id}`
     for (const res of [
       await as('owner').get(path),
@@ -213,7 +149,7 @@ describe('GET /api/channels/:channelId/puzzles/:puzzleId', () => {
       expect(res.status).toBe(404)
       expect(res.body.message).toBe('Puzzle not found')
     }
-    expect(await db('puzzles').where({ id: foreign.id }).first()).toMatchObject({ title: foreign.title, version: 1 })
+    expect(await api.db('puzzles').where({ id: foreign.id }).first()).toMatchObject({ title: foreign.title, version: 1 })
   })
 })
 
@@ -223,7 +159,7 @@ describe('PUT /api/channels/:channelId/puzzles/:puzzleId', () => {
     const res = await as('owner').put(`${puzzles()}/${saved.id}`, { ...draftOf('PE01'), givens: '.'.repeat(81), version: 1 })
     expect(res.status).toBe(200)
     expect(res.body).toMatchObject({ id: saved.id, version: 2, check: 'multiple-solutions', givens: '.'.repeat(81) })
-    expect((await db('puzzles').where({ id: saved.id }).first())!.solution).toBeNull()
+    expect((await api.db('puzzles').where({ id: saved.id }).first())!.solution).toBeNull()
   })
 
   it('should answer 409 with the current copy to the second of two people who read the same version, losing nothing', async () => {
@@ -259,10 +195,10 @@ describe('PUT /api/channels/:channelId/puzzles/:puzzleId', () => {
 describe('DELETE /api/channels/:channelId/puzzles/:puzzleId', () => {
   it('should remove the puzzle and its outlines', async () => {
     const saved = await create('GT13')
-    await db('outlines').insert({ puzzle_id: saved.id, name: 'Take 1', status: 'solved', step_count: 0, total_ms: 0, document: db.raw("'{}'::jsonb") })
+    await api.db('outlines').insert({ puzzle_id: saved.id, name: 'Take 1', status: 'solved', step_count: 0, total_ms: 0, document: api.db.raw("'{}'::jsonb") })
     const res = await as('presenter').delete(`${puzzles()}/${saved.id}`)
     expect(res.status).toBe(204)
     expect((await as('owner').get(`${puzzles()}/${saved.id}`)).status).toBe(404)
-    expect(await db('outlines').where({ puzzle_id: saved.id })).toEqual([])
+    expect(await api.db('outlines').where({ puzzle_id: saved.id })).toEqual([])
   })
 })

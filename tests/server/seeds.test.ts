@@ -1,25 +1,19 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Db } from '../../server/db/knex'
+import { describe, expect, it } from 'vitest'
 import { DEMO_PUZZLES, seed as seedPuzzles } from '../../seeds/02_demo_puzzles'
-import { openTestDb, resetWithDemo } from '../helpers/db'
+import { useApiSuite } from '../helpers/api'
 
-let db: Db
-beforeAll(async () => {
-  db = await openTestDb()
-  await resetWithDemo(db)
-})
-afterAll(() => db.destroy())
+const api = useApiSuite()
 
 describe('seeds/02_demo_puzzles', () => {
   it('should add two unique puzzles and an outline of the thermometer one, once', async () => {
-    await seedPuzzles(db)
-    await seedPuzzles(db)
-    const puzzles = await db('puzzles').orderBy('id')
+    await seedPuzzles(api.db)
+    await seedPuzzles(api.db)
+    const puzzles = await api.db('puzzles').orderBy('id')
     expect(puzzles.map((p) => [p.title, p.check, p.thermometers.length > 0])).toEqual([
       ['Quiet Harbour', 'unique', false],
       ['Four Fevers', 'unique', true],
     ])
-    const outlines = await db('outlines')
+    const outlines = await api.db('outlines')
     expect(outlines).toHaveLength(1)
     expect(outlines[0]).toMatchObject({ puzzle_id: puzzles[1].id, name: 'First take', status: 'solved' })
     expect(outlines[0].document.author).toBe('Ilse Marchetti')

@@ -1,0 +1,126 @@
+/**
+ * The role matrix, generated: every endpoint the app registers × every kind of caller, each answer
+ * checked against the permission table (shared/permissions.ts). ENDPOINTS below pins each endpoint's
+ * access and gives a minimal valid request; an endpoint without a row fails here.
+ */
+import { describe, expect, it } from 'vitest'
+import type { Express } from 'express'
+import type { Access, EndpointInfo } from '../../server/routes/endpoint'
+import { DEMO_PASSWORD } from '../../seeds/01_demo_channel'
+import { rolesFor } from '../../shared/permissions'
+import type { OutlineRecord, PuzzleRecord } from '../../shared/schemas/studio'
+import { ACTORS, demoEmail, registeredEndpoints, useApiSuite, type Actor } from '../helpers/api'
+import { draftOf } from '../helpers/studio'
+
+let puzzle: PuzzleRecord
+let outline: OutlineRecord
+const api = useApiSuite({
+  prepare: async (suite) => {
+    puzzle = await suite.createPuzzle(draftOf('GT13'))
+    const res = await suite.as('owner').post(`/api/channels/${suite.channelId}/puzzles/${puzzle.id}/outlines`, {})
+    if (res.status !== 201) throw new Error(`making an outline failed: ${res.status} ${JSON.stringify(res.body)}`)
+    outline = res.body
+  },
+})
+
+interface Row {
+  access: Access
+  /** a valid body, built when the test runs (after the puzzle and outline above exist) */
+  body?: () => object
+}
+
+/** Each endpoint by `METHOD path`: who may call it, and what a valid request sends. */
+const ENDPOINTS: Record<string, Row> = {
+  'POST /api/auth/sign-in': { access: 'public', body: () => ({ email: demoEmail('owner'), password: DEMO_PASSWORD }) },
+  'GET /api/auth/me': { access: 'signed-in' },
+  'GET /api/channels': { access: 'signed-in' },
+  'GET /api/channels/:channelId': { access: 'channel.read' },
+  'GET /api/channels/:channelId/members': { access: 'members.read' },
+  'GET /api/channels/:channelId/puzzles': { access: 'puzzle.read' },
+  'POST /api/channels/:channelId/puzzles': { access: 'puzzle.edit', body: () => draftOf('PE01') },
+  'GET /api/channels/:channelId/puzzles/:puzzleId': { access: 'puzzle.read' },
+  'PUT /api/channels/:channelId/puzzles/:puzzleId': { access: 'puzzle.edit', body: () => ({ ...draftOf('GT13'), title: 'Renamed', version: puzzle.version }) },
+  'DELETE /api/channels/:channelId/puzzles/:puzzleId': { access: 'puzzle.edit' },
+  'GET /api/channels/:channelId/puzzles/:puzzleId/outlines': { access: 'outline.read' },
+  'POST /api/channels/:channelId/puzzles/:puzzleId/outlines': { access: 'outline.create', body: () => ({ name: 'Another take' }) },
+  'GET /api/channels/:channelId/outlines/:outlineId': { access: 'outline.read' },
+  'PATCH /api/channels/:channelId/outlines/:outlineId': { access: 'outline.edit', body: () => ({ version: outline.version, outline: outline.outline }) },
+  'GET /api/channels/:channelId/outlines/:outlineId/cue-sheet.pdf': { access: 'outline.read' },
+  'POST /api/channels/:channelId/outlines/:outlineId/duplicate': { access: 'outline.create' },
+  'DELETE /api/channels/:channelId/outlines/:outlineId': { access: 'outline.create' },
+}
+
+const endpoints = await registeredEndpoints()
+const keyOf = (e: EndpointInfo) => `${e.method.toUpperCase()} ${e.path}`
+
+type Outcome = 'allowed' | 401 | 403 | 404
+
+function outcomeFor(access: Access, actor: Actor): Outcome {
+  if (access === 'public') return 'allowed'
+  if (actor === 'anonymous') return 401
+  if (access === 'signed-in') return 'allowed'
+  if (actor === 'non-member') return 404
+  return rolesFor(access).includes(actor) ? 'allowed' : 403
+}
+
+const refusal = (outcome: 401 | 403 | 404, actor: Actor) =>
+  ({
+    401: { code: 'unauthenticated', message: 'Please sign in first.' },
+    403: { code: 'forbidden', message: `Your role in this channel (${actor}) does not allow this` },
+    404: { code: 'not-found', message: 'Channel not found' },
+  })[outcome]
+
+function call(endpoint: EndpointInfo, actor: Actor, ids: Record<string, string | number> = {}) {
+  const row = ENDPOINTS[keyOf(endpoint)]
+  if (!row) throw new Error(`${keyOf(endpoint)} has no row in ENDPOINTS: add its access and a valid request`)
+  const known: Record<string, string | number> = { channelId: api.channelId, puzzleId: puzzle.id, outlineId: outline.id, ...ids }
+  const path = endpoint.path.replace(/:(\w+)/g, (_, name: string) => {
+    if (known[name] === undefined) throw new Error(`no test id for :${name}`)
+    return String(known[name])
+  })
+  return api.as(actor)[endpoint.method](path, row.body?.())
+}
+
+for (const endpoint of endpoints) {
+  describe(`${keyOf(endpoint)} (${endpoint.access})`, () => {
+    for (const actor of ACTORS) {
+      const outcome = outcomeFor(endpoint.access, actor)
+      it(`as ${actor} → ${outcome === 'allowed' ? '2xx' : outcome}`, async () => {
+        const res = await call(endpoint, actor)
+        if (outcome === 'allowed') expect(res.status, JSON.stringify(res.body)).toSatisfy((s: number) => s >= 200 && s < 300)
+        else expect({ status: res.status, body: res.body }).toEqual({ status: outcome, body: refusal(outcome, actor) })
+      })
+    }
+    if (endpoint.path.includes(':channelId')) {
+      it('as owner with a channel id that is not a number → 400', async () => {
+        const res = await call(endpoint, 'owner', { channelId: 'first' })
+        expect(res.status).toBe(400)
+        expect(res.body.message).toBe('params.channelId: must be a positive whole number')
+      })
+    }
+  })
+}
+
+describe('the endpoint table', () => {
+  it('should have one row per registered endpoint, naming the access it was registered with', () => {
+    const registered = Object.fromEntries(endpoints.map((e) => [keyOf(e), e.access]))
+    const rows = Object.fromEntries(Object.entries(ENDPOINTS).map(([key, row]) => [key, row.access]))
+    expect(registered).toEqual(rows)
+  })
+
+  it('should know every route the app answers (no route added around the endpoint table)', () => {
+    expect(routesOf(api.app.router).sort()).toEqual(endpoints.map(keyOf).sort())
+  })
+})
+
+type Layer = Express['router']['stack'][number]
+
+/** `METHOD path` of every route in a router and the routers mounted in it. */
+function routesOf(router: { stack: Layer[] }): string[] {
+  return router.stack.flatMap((layer) => {
+    const route = layer.route
+    if (route) return [...new Set(route.stack.map((l) => l.method.toUpperCase()))].map((method) => `${method} ${route.path}`)
+    const mounted = layer.handle
+    return 'stack' in mounted && Array.isArray(mounted.stack) ? routesOf({ stack: mounted.stack }) : []
+  })
+}
