@@ -1,15 +1,15 @@
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest'
 import { defineComponent, h } from 'vue'
-import { flushPromises, mount } from '@vue/test-utils'
+import { render, screen } from '@testing-library/vue'
+import userEvent from '@testing-library/user-event'
 import { createMemoryHistory, createRouter } from 'vue-router'
-import type { Router } from 'vue-router'
 import PrimeVue from 'primevue/config'
 import StudioStepper from '@/components/StudioStepper.vue'
 import { useStepNavigation } from '@/composables/useStepNavigation'
 import { outlineFor } from '../helpers/studio-outline'
+import './render'
 
-const outline = outlineFor('PE01')
-const COUNT = outline.steps.length
+const COUNT = outlineFor('PE01').steps.length
 const URL_DELAY = 50
 
 // The Studio's own wiring, reduced to the stepper: the composable owns the step, the component shows it.
@@ -26,176 +26,151 @@ const StepperHarness = defineComponent({
   },
 })
 
-async function setup(path = '/studio') {
+async function renderStepper(path = '/studio') {
   const router = createRouter({ history: createMemoryHistory(), routes: [{ path: '/studio', component: { render: () => null } }] })
   await router.push(path)
   await router.isReady()
-  const wrapper = mount(StepperHarness, { attachTo: document.body, global: { plugins: [router, [PrimeVue, { theme: 'none' }]] } })
-  return { wrapper, router }
+  render(StepperHarness, { global: { plugins: [router, [PrimeVue, { theme: 'none' }]] } })
+  // after the Studio's own listener, so it sees what that one did
+  window.addEventListener('keydown', noteKeys)
+  return { router }
 }
 
-function press(key: string, target: EventTarget = window, init: KeyboardEventInit = {}) {
-  const event = new KeyboardEvent('keydown', { key, bubbles: true, cancelable: true, ...init })
-  target.dispatchEvent(event)
-  return event
-}
+const slider = () => screen.getByRole('slider', { name: 'Step' })
+/** Where the replay is, as the slider tells a screen reader. */
+const position = () => slider().getAttribute('aria-valuetext')
+const at = (k: number) => (k === 0 ? 'Start, before any step' : `Step ${k} of ${COUNT}`)
+const user = () => userEvent.setup({ advanceTimers: vi.advanceTimersByTime })
 
-const position = (wrapper: Awaited<ReturnType<typeof setup>>['wrapper']) => wrapper.find('.stepper__position').text()
-const slider = (wrapper: Awaited<ReturnType<typeof setup>>['wrapper']) => wrapper.find('[role="slider"]')
-
-async function settleUrl() {
-  await new Promise((resolve) => setTimeout(resolve, URL_DELAY + 20))
-  await flushPromises()
+/** Whether the Studio took the last key pressed for itself (it prevents the default of keys it uses). */
+let lastKeyTaken: boolean | null = null
+function noteKeys(event: KeyboardEvent) {
+  lastKeyTaken = event.defaultPrevented
 }
 
 describe('StudioStepper with useStepNavigation', () => {
-  let router: Router | undefined
   beforeEach(() => {
-    document.body.innerHTML = ''
+    vi.useFakeTimers()
+    lastKeyTaken = null
   })
   afterEach(() => {
-    router = undefined
-    vi.restoreAllMocks()
+    window.removeEventListener('keydown', noteKeys)
+    vi.useRealTimers()
   })
 
   it('should step with → and ←, and jump with Home and End', async () => {
-    const { wrapper } = await setup()
-    expect(position(wrapper)).toBe(`Start / ${COUNT}`)
+    await renderStepper()
+    expect(position()).toBe(at(0))
+    expect(screen.getByText(`Start / ${COUNT}`)).toBeInTheDocument()
 
-    press('ArrowRight')
-    press('ArrowRight')
-    await flushPromises()
-    expect(position(wrapper)).toBe(`2 / ${COUNT}`)
-    expect(slider(wrapper).attributes('aria-valuenow')).toBe('2')
+    await user().keyboard('{ArrowRight}{ArrowRight}')
+    expect(position()).toBe(at(2))
+    expect(slider()).toHaveAttribute('aria-valuenow', '2')
+    expect(screen.getByText(`2 / ${COUNT}`)).toBeInTheDocument()
 
-    press('ArrowLeft')
-    await flushPromises()
-    expect(position(wrapper)).toBe(`1 / ${COUNT}`)
+    await user().keyboard('{ArrowLeft}')
+    expect(position()).toBe(at(1))
 
-    press('End')
-    await flushPromises()
-    expect(position(wrapper)).toBe(`${COUNT} / ${COUNT}`)
-    press('ArrowRight')
-    await flushPromises()
-    expect(position(wrapper)).toBe(`${COUNT} / ${COUNT}`)
+    await user().keyboard('{End}')
+    expect(position()).toBe(at(COUNT))
+    await user().keyboard('{ArrowRight}')
+    expect(position()).toBe(at(COUNT))
 
-    press('Home')
-    await flushPromises()
-    expect(position(wrapper)).toBe(`Start / ${COUNT}`)
-    wrapper.unmount()
+    await user().keyboard('{Home}')
+    expect(position()).toBe(at(0))
   })
 
   it('should jump to a typed step number on Enter, and forget it on Escape', async () => {
-    const { wrapper } = await setup()
-    press('1')
-    press('2')
-    await flushPromises()
-    expect(position(wrapper)).toContain('Go to step 12')
+    await renderStepper()
+    await user().keyboard('12')
+    expect(screen.getByText(/Go to step 12/)).toBeInTheDocument()
 
-    const enter = press('Enter')
-    await flushPromises()
-    expect(enter.defaultPrevented).toBe(true)
-    expect(position(wrapper)).toBe(`12 / ${COUNT}`)
+    await user().keyboard('{Enter}')
+    expect(lastKeyTaken).toBe(true)
+    expect(position()).toBe(at(12))
+    expect(screen.queryByText(/Go to step/)).not.toBeInTheDocument()
 
-    press('4')
-    press('Escape')
-    press('Enter')
-    await flushPromises()
-    expect(position(wrapper)).toBe(`12 / ${COUNT}`)
+    await user().keyboard('4{Escape}{Enter}')
+    expect(position()).toBe(at(12))
 
-    press('9')
-    press('9')
-    press('9')
-    press('Enter')
-    await flushPromises()
-    expect(position(wrapper)).toBe(`${COUNT} / ${COUNT}`)
-    wrapper.unmount()
+    await user().keyboard('999{Enter}')
+    expect(position()).toBe(at(COUNT))
+  })
+
+  it('should forget typed digits after a few quiet seconds', async () => {
+    await renderStepper()
+    await user().keyboard('7')
+    expect(screen.getByText(/Go to step 7/)).toBeInTheDocument()
+    await vi.advanceTimersByTimeAsync(4000)
+    expect(screen.queryByText(/Go to step/)).not.toBeInTheDocument()
+    await user().keyboard('{Enter}')
+    expect(position()).toBe(at(0))
   })
 
   it('should leave keys alone while focus is in a text field', async () => {
-    const { wrapper } = await setup()
-    const notes = wrapper.find('textarea').element
-    const title = wrapper.find('input').element
-    const fromNotes = press('ArrowRight', notes)
-    press('5', notes)
-    press('Enter', notes)
-    press('End', title)
-    await flushPromises()
-    expect(fromNotes.defaultPrevented).toBe(false)
-    expect(position(wrapper)).toBe(`Start / ${COUNT}`)
-    wrapper.unmount()
+    await renderStepper()
+    await user().click(screen.getByRole('textbox', { name: 'Notes' }))
+    await user().keyboard('{ArrowRight}')
+    expect(lastKeyTaken).toBe(false)
+    await user().keyboard('5{Enter}')
+    await user().click(screen.getByRole('textbox', { name: 'Title' }))
+    await user().keyboard('{End}')
+    expect(position()).toBe(at(0))
   })
 
   it('should leave keys alone when a modifier is held or a widget already handled them', async () => {
-    const { wrapper } = await setup()
-    press('ArrowRight', window, { ctrlKey: true })
+    await renderStepper()
+    await user().keyboard('{Control>}{ArrowRight}{/Control}')
     const handled = new KeyboardEvent('keydown', { key: 'ArrowRight', bubbles: true, cancelable: true })
     handled.preventDefault()
     window.dispatchEvent(handled)
-    await flushPromises()
-    expect(position(wrapper)).toBe(`Start / ${COUNT}`)
-    wrapper.unmount()
+    expect(position()).toBe(at(0))
   })
 
   it('should step with the Previous and Next buttons', async () => {
-    const { wrapper } = await setup()
-    const next = wrapper.findAll('button').find((b) => b.text() === 'Next')!
-    const previous = wrapper.findAll('button').find((b) => b.text() === 'Previous')!
-    expect(previous.attributes('disabled')).toBeDefined()
-    await next.trigger('click')
-    await next.trigger('click')
-    await previous.trigger('click')
-    expect(position(wrapper)).toBe(`1 / ${COUNT}`)
-    wrapper.unmount()
+    await renderStepper()
+    const next = screen.getByRole('button', { name: 'Next' })
+    const previous = screen.getByRole('button', { name: 'Previous' })
+    expect(previous).toBeDisabled()
+    await user().click(next)
+    await user().click(next)
+    await user().click(previous)
+    expect(position()).toBe(at(1))
+    expect(previous).toBeEnabled()
   })
 
   it('should keep the step in the URL with replace, not push', async () => {
-    const setupResult = await setup()
-    router = setupResult.router
-    const { wrapper } = setupResult
+    const { router } = await renderStepper()
     const push = vi.spyOn(router, 'push')
     const replace = vi.spyOn(router, 'replace')
 
-    press('ArrowRight')
-    press('ArrowRight')
-    press('ArrowRight')
-    await settleUrl()
+    await user().keyboard('{ArrowRight}{ArrowRight}{ArrowRight}')
+    await vi.advanceTimersByTimeAsync(URL_DELAY)
     expect(router.currentRoute.value.query.step).toBe('3')
     expect(push).not.toHaveBeenCalled()
     // Several quick steps settle into one address-bar update.
     expect(replace).toHaveBeenCalledTimes(1)
-    wrapper.unmount()
   })
 
   it('should open at the step in the URL and follow the URL when it changes', async () => {
-    const setupResult = await setup('/studio?step=7')
-    router = setupResult.router
-    const { wrapper } = setupResult
-    expect(position(wrapper)).toBe(`7 / ${COUNT}`)
+    const { router } = await renderStepper('/studio?step=7')
+    expect(position()).toBe(at(7))
 
     await router.replace('/studio?step=20')
-    await flushPromises()
-    expect(position(wrapper)).toBe(`20 / ${COUNT}`)
+    expect(position()).toBe(at(20))
 
     await router.replace('/studio?step=99999')
-    await flushPromises()
-    expect(position(wrapper)).toBe(`${COUNT} / ${COUNT}`)
-    wrapper.unmount()
+    expect(position()).toBe(at(COUNT))
   })
 
   it('should not snap back to an older URL value while the newer one is still on its way', async () => {
-    const setupResult = await setup()
-    router = setupResult.router
-    const { wrapper } = setupResult
-    press('ArrowRight')
-    await settleUrl()
-    press('ArrowRight')
-    press('ArrowRight')
-    await flushPromises()
-    expect(position(wrapper)).toBe(`3 / ${COUNT}`)
-    await settleUrl()
+    const { router } = await renderStepper()
+    await user().keyboard('{ArrowRight}')
+    await vi.advanceTimersByTimeAsync(URL_DELAY)
+    await user().keyboard('{ArrowRight}{ArrowRight}')
+    expect(position()).toBe(at(3))
+    await vi.advanceTimersByTimeAsync(URL_DELAY)
     expect(router.currentRoute.value.query.step).toBe('3')
-    expect(position(wrapper)).toBe(`3 / ${COUNT}`)
-    wrapper.unmount()
+    expect(position()).toBe(at(3))
   })
 })
