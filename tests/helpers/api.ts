@@ -62,8 +62,8 @@ interface SuiteState {
 
 /**
  * The one set-up of the API test files; call it at the top of the file. It opens the migrated test
- * database with the demo channel, its four people and one person outside it, a one-thread engine pool
- * and a signed token for each person. Before every test the data goes back to what it was after
+ * database with the demo channel, its four people and one person outside it, and a one-thread engine
+ * pool; requests carry a token signed for the person they are sent as. Before every test the data goes back to what it was after
  * `prepare` and the app is built again, so no test depends on another's leftovers.
  */
 export function useApiSuite(options: ApiSuiteOptions = {}): ApiSuite {

@@ -47,9 +47,12 @@ export async function saveBaseline(db: Db): Promise<Baseline> {
   return {
     restore: () =>
       db.transaction(async (trx) => {
-        await trx.raw(`truncate ${quoted(tables)} restart identity cascade`)
+        // delete, not truncate: on a few rows 3 ms against 65 ms here (truncate replaces the table files)
+        for (const table of [...tables].reverse()) await trx.raw(`delete from public."${table}"`)
         for (const table of tables) await trx.raw(`insert into public."${table}" overriding system value select * from ${BASELINE_SCHEMA}."${table}"`)
-        await trx.raw(`select setval(format('public.%I', sequencename), last_value) from ${BASELINE_SCHEMA}.sequences where last_value is not null`)
+        await trx.raw(
+          `select setval(format('public.%I', sequencename), coalesce(last_value, 1), last_value is not null) from ${BASELINE_SCHEMA}.sequences`,
+        )
       }),
     drop: async () => {
       await db.raw(`drop schema if exists ${BASELINE_SCHEMA} cascade`)
