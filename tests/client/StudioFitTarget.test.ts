@@ -1,7 +1,7 @@
 import { beforeEach, describe, expect, it } from 'vitest'
 import { defineComponent, h } from 'vue'
-import { flushPromises, mount } from '@vue/test-utils'
-import type { VueWrapper } from '@vue/test-utils'
+import { render, screen, within } from '@testing-library/vue'
+import userEvent from '@testing-library/user-event'
 import PrimeVue from 'primevue/config'
 import { fitToTarget, formatClock, timeline } from '@shared/script'
 import type { Outline } from '@shared/script'
@@ -10,9 +10,10 @@ import { parseLength } from '@/components/ScriptFitTarget.vue'
 import { useOutlineEditor } from '@/composables/useOutlineEditor'
 import type { OutlineEditor } from '@/composables/useOutlineEditor'
 import { outlineFor } from '../helpers/studio-outline'
+import { settle } from './render'
 
 // The script pane wired as the Studio wires it: single edits and grouped edits both run through the editor.
-function mountEditor(doc: Outline) {
+function renderEditor(doc: Outline) {
   let editor!: OutlineEditor
   const selected: number[] = []
   const Harness = defineComponent({
@@ -38,22 +39,24 @@ function mountEditor(doc: Outline) {
           : null
     },
   })
-  const wrapper = mount(Harness, { attachTo: document.body, global: { plugins: [[PrimeVue, { theme: 'none' }]] } })
-  return { wrapper, editor: () => editor, selected }
+  render(Harness, { global: { plugins: [[PrimeVue, { theme: 'none' }]] } })
+  return { editor: () => editor, selected }
 }
 
-async function ask(wrapper: VueWrapper, text: string): Promise<void> {
-  await wrapper.find('input[placeholder="m:ss"]').setValue(text)
-  await wrapper.find('form.fit__form').trigger('submit')
-  await flushPromises()
+const user = () => userEvent.setup()
+const lengthField = () => screen.getByRole('textbox', { name: 'Fit to' })
+/** Types a length into "Fit to" and asks for suggestions, as a person would. */
+async function ask(text: string): Promise<void> {
+  await user().clear(lengthField())
+  await user().type(lengthField(), text)
+  await user().click(screen.getByRole('button', { name: 'Suggest cuts' }))
 }
-const panel = (wrapper: VueWrapper) => wrapper.find('[data-testid="fit-panel"]')
-const buttonNamed = (wrapper: VueWrapper, start: string) => {
-  const found = wrapper.findAll('button').find((b) => b.text().startsWith(start))
-  if (!found) throw new Error(`no button "${start}"`)
-  return found
-}
-const total = (wrapper: VueWrapper) => wrapper.find('[data-testid="script-total"]').text()
+const panel = () => screen.getByRole('region', { name: /^Fitting to/ })
+const noPanel = () => expect(screen.queryByRole('region', { name: /^Fitting to/ })).not.toBeInTheDocument()
+const suggestions = () => within(panel()).queryAllByRole('listitem')
+const script = () => screen.getByRole('region', { name: 'Script' })
+// The bar reads "Total 3:00" (two elements, so no space between them in the text)
+const showsTotal = (ms: number) => expect(script()).toHaveTextContent(new RegExp(`Total\\s*${formatClock(ms)}`))
 
 describe('parseLength', () => {
   it('should read minutes and seconds, minutes alone, and hours', () => {
@@ -72,110 +75,107 @@ describe('parseLength', () => {
 describe('Fit to a target length (script toolbar)', () => {
   let doc: Outline
   beforeEach(() => {
-    document.body.innerHTML = ''
     doc = outlineFor('GT07')
   })
 
   it('should show a form message for words that are not a length, and change nothing', async () => {
-    const { wrapper, editor } = mountEditor(doc)
-    await ask(wrapper, 'ten minutes')
-    const input = wrapper.find('input[placeholder="m:ss"]')
-    expect(input.attributes('aria-invalid')).toBe('true')
-    const message = wrapper.find(`#${input.attributes('aria-describedby')}`)
-    expect(message.text()).toContain('minutes and seconds')
-    expect(panel(wrapper).exists()).toBe(false)
+    const { editor } = renderEditor(doc)
+    await ask('ten minutes')
+    expect(lengthField()).toBeInvalid()
+    expect(lengthField()).toHaveAccessibleDescription(/minutes and seconds/)
+    noPanel()
     expect(editor().outline.value).toBe(doc)
     expect(editor().canUndo.value).toBe(false)
 
     // Typing again clears the message.
-    await input.setValue('10:00')
-    expect(wrapper.find('input[placeholder="m:ss"]').attributes('aria-invalid')).toBeUndefined()
-    wrapper.unmount()
+    await user().type(lengthField(), '1')
+    expect(lengthField()).not.toHaveAttribute('aria-invalid', 'true')
+    expect(lengthField()).not.toHaveAccessibleDescription(/minutes and seconds/)
   })
 
   it('should refuse a target shorter than the introduction, with a message', async () => {
-    const { wrapper, editor } = mountEditor(doc)
+    const { editor } = renderEditor(doc)
     const introMs = doc.lines.find((l) => l.kind === 'intro')!.estMs
-    await ask(wrapper, '0:05')
+    await ask('0:05')
     expect(introMs).toBeGreaterThan(5000)
-    expect(wrapper.text()).toContain(`shorter than the introduction alone (${formatClock(introMs)})`)
-    expect(panel(wrapper).exists()).toBe(false)
+    expect(lengthField()).toHaveAccessibleDescription(`That's shorter than the introduction alone (${formatClock(introMs)}). Try a longer length.`)
+    noPanel()
     expect(editor().outline.value).toBe(doc)
-    wrapper.unmount()
   })
 
   it('should list what fitToTarget suggests, with the new total', async () => {
-    const { wrapper, selected } = mountEditor(doc)
+    const { selected } = renderEditor(doc)
     const targetMs = Math.round((timeline(doc).totalMs * 0.7) / 1000) * 1000
     const expected = fitToTarget(doc, targetMs)
     expect(expected.suggestions.length).toBeGreaterThan(2)
-    await ask(wrapper, formatClock(targetMs))
+    await ask(formatClock(targetMs))
 
-    const items = panel(wrapper).findAll('li')
+    const items = suggestions()
     expect(items).toHaveLength(expected.suggestions.length)
-    expect(items.filter((li) => li.text().startsWith('Join lines'))).toHaveLength(expected.suggestions.filter((s) => s.action === 'fold').length)
-    expect(items.filter((li) => li.text().startsWith('Hide line'))).toHaveLength(expected.suggestions.filter((s) => s.action === 'hide').length)
-    expect(items[0].text()).toContain(`−${formatClock(expected.suggestions[0].savesMs)}`)
-    expect(panel(wrapper).text()).toContain(`down to ${formatClock(expected.newTotalMs)}`)
-    expect(buttonNamed(wrapper, 'Apply').text()).toBe(`Apply ${expected.suggestions.length} changes`)
+    const actions = items.map((li) => within(li).getByRole('button').textContent!.trim())
+    expect(actions.filter((a) => a.startsWith('Join lines'))).toHaveLength(expected.suggestions.filter((s) => s.action === 'fold').length)
+    expect(actions.filter((a) => a.startsWith('Hide line'))).toHaveLength(expected.suggestions.filter((s) => s.action === 'hide').length)
+    expect(items[0]).toHaveTextContent(`−${formatClock(expected.suggestions[0].savesMs)}`)
+    expect(panel()).toHaveTextContent(`down to ${formatClock(expected.newTotalMs)}`)
+    expect(within(panel()).getByRole('button', { name: `Apply ${expected.suggestions.length} changes` })).toBeInTheDocument()
 
     // A suggestion's line can be looked at before deciding.
-    await items[0].find('button').trigger('click')
+    await user().click(within(items[0]).getByRole('button'))
     expect(selected).toEqual([expected.suggestions[0].lineIds[0]])
-    wrapper.unmount()
   })
 
   it('should apply every suggestion and the target as one edit, which one undo takes back', async () => {
-    const { wrapper, editor } = mountEditor(doc)
-    const before = total(wrapper)
+    const { editor } = renderEditor(doc)
     const targetMs = Math.round((timeline(doc).totalMs * 0.7) / 1000) * 1000
     const expected = fitToTarget(doc, targetMs)
-    await ask(wrapper, formatClock(targetMs))
-    await buttonNamed(wrapper, 'Apply').trigger('click')
-    await flushPromises()
+    await ask(formatClock(targetMs))
+    await user().click(within(panel()).getByRole('button', { name: /^Apply/ }))
 
     const after = editor().outline.value!
     expect(after.targetMs).toBe(targetMs)
     expect(after.lines).toEqual(expected.outline.lines)
     expect(timeline(after).totalMs).toBe(expected.newTotalMs)
-    expect(total(wrapper)).toBe(formatClock(expected.newTotalMs))
-    expect(wrapper.findAll('article.line')).toHaveLength(expected.outline.lines.length)
-    expect(panel(wrapper).exists()).toBe(false)
+    showsTotal(expected.newTotalMs)
+    expect(within(script()).getAllByRole('article')).toHaveLength(expected.outline.lines.length)
+    noPanel()
 
-    await buttonNamed(wrapper, 'Undo').trigger('click')
-    await flushPromises()
+    await user().click(screen.getByRole('button', { name: 'Undo' }))
     expect(editor().outline.value).toBe(doc)
     expect(editor().canUndo.value).toBe(false)
-    expect(total(wrapper)).toBe(before)
-    wrapper.unmount()
+    showsTotal(timeline(doc).totalMs)
   })
 
   it('should say when the script already fits, and offer to keep the target', async () => {
-    const { wrapper, editor } = mountEditor(doc)
+    const { editor } = renderEditor(doc)
     const targetMs = Math.ceil((timeline(doc).totalMs * 1.2) / 1000) * 1000
-    await ask(wrapper, formatClock(targetMs))
-    expect(panel(wrapper).text()).toContain('already fits')
-    expect(panel(wrapper).findAll('li')).toHaveLength(0)
-    await buttonNamed(wrapper, 'Keep').trigger('click')
-    await flushPromises()
+    await ask(formatClock(targetMs))
+    expect(panel()).toHaveTextContent('already fits')
+    expect(suggestions()).toHaveLength(0)
+    await user().click(within(panel()).getByRole('button', { name: `Keep ${formatClock(targetMs)} as the target` }))
     expect(editor().outline.value!.targetMs).toBe(targetMs)
     expect(editor().outline.value!.lines).toBe(doc.lines)
-    expect(wrapper.find('.script__target').text()).toContain(formatClock(targetMs))
-    wrapper.unmount()
+    expect(script()).toHaveTextContent(new RegExp(`target\\s*${formatClock(targetMs)}`))
+  })
+
+  it('should close the suggestions without changing anything', async () => {
+    const { editor } = renderEditor(doc)
+    await ask(formatClock(Math.round((timeline(doc).totalMs * 0.7) / 1000) * 1000))
+    await user().click(within(panel()).getByRole('button', { name: 'Close' }))
+    noPanel()
+    expect(editor().outline.value).toBe(doc)
   })
 
   it('should keep the suggestions in step with edits made while they are shown', async () => {
-    const { wrapper, editor } = mountEditor(doc)
+    const { editor } = renderEditor(doc)
     const targetMs = Math.round((timeline(doc).totalMs * 0.9) / 1000) * 1000
-    await ask(wrapper, formatClock(targetMs))
-    const shown = panel(wrapper).findAll('li').length
+    await ask(formatClock(targetMs))
+    const shown = suggestions().length
     // Halving the pace lengthens every line: more has to go.
     editor().apply({ op: 'setPace', pace: Math.round(doc.pace / 2) })
-    await flushPromises()
+    await settle()
     const expected = fitToTarget(editor().outline.value!, targetMs)
-    expect(panel(wrapper).findAll('li')).toHaveLength(expected.suggestions.length)
+    expect(suggestions()).toHaveLength(expected.suggestions.length)
     expect(expected.suggestions.length).toBeGreaterThan(shown)
-    wrapper.unmount()
   })
 
   it('should leave the outline alone when the grouped edits are refused', () => {
