@@ -2,7 +2,7 @@ import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest'
 import pkg from 'webvtt-parser'
 import { useOutlineExports } from '@/composables/useOutlineExports'
 import { outlineFor } from '../helpers/studio-outline'
-import { jsonResponse, mockApi } from './support'
+import { api, apiPath, http, HttpResponse } from './msw'
 
 const { WebVTTParser } = pkg
 
@@ -27,7 +27,6 @@ beforeEach(() => {
 })
 afterEach(() => {
   vi.restoreAllMocks()
-  vi.unstubAllGlobals()
 })
 
 function setup(saveFirst = vi.fn(async () => {})) {
@@ -65,22 +64,27 @@ describe('useOutlineExports', () => {
   })
 
   it('should save pending edits before asking the server for the cue sheet with grids', async () => {
-    const fetchMock = mockApi({
-      'GET /api/channels/1/outlines/31/cue-sheet.pdf?thumbnails=1': () =>
-        new Response(new Blob(['%PDF-1.3 test']), { status: 200, headers: { 'Content-Type': 'application/pdf' } }),
-    })
+    const asked: string[] = []
+    api.use(
+      http.get(apiPath('/channels/1/outlines/31/cue-sheet.pdf'), ({ request }) => {
+        asked.push(new URL(request.url).search)
+        return new HttpResponse(new Blob(['%PDF-1.3 test']), { headers: { 'Content-Type': 'application/pdf' } })
+      }),
+    )
     const { exports, saveFirst } = setup()
     await exports.exportAs('cue-sheet-grids')
     expect(saveFirst).toHaveBeenCalledOnce()
-    expect(fetchMock).toHaveBeenCalledOnce()
+    expect(asked).toEqual(['?thumbnails=1'])
     expect(downloads[0]!.name).toBe('project-euler-96-grid-01-first-take-cue-sheet.pdf')
     expect(await downloads[0]!.blob.text()).toBe('%PDF-1.3 test')
   })
 
   it('should show the server message when the cue sheet fails, and download nothing', async () => {
-    mockApi({
-      'GET /api/channels/1/outlines/31/cue-sheet.pdf?thumbnails=0': jsonResponse(403, { code: 'forbidden', message: 'Your role in this channel (viewer) does not allow this' }),
-    })
+    api.use(
+      http.get(apiPath('/channels/1/outlines/31/cue-sheet.pdf'), () =>
+        HttpResponse.json({ code: 'forbidden', message: 'Your role in this channel (viewer) does not allow this' }, { status: 403 }),
+      ),
+    )
     const { exports } = setup()
     await exports.exportAs('cue-sheet')
     expect(exports.error.value).toBe('Your role in this channel (viewer) does not allow this')
