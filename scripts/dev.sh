@@ -6,8 +6,8 @@ source "$(dirname "$0")/lib/setup.sh"
 PG_PORT=${GRIDCUE_PG_PORT:-5433}
 ensure_dependencies
 ensure_jwt_secret
-open_database main "$PG_PORT" gridcue
 trap close_database EXIT
+open_database main "$PG_PORT" gridcue
 run_tsx scripts/migrate.ts --seed
 
 export NODE_ENV=development

@@ -8,8 +8,8 @@ ensure_dependencies
 export NODE_ENV=test
 export JWT_SECRET=${JWT_SECRET:-test-secret-that-is-long-enough-for-hs256-signing}
 
-open_database test "$PG_PORT" gridcue_test throwaway
 trap close_database EXIT
+open_database test "$PG_PORT" gridcue_test throwaway
 
 if ! command -v chromium >/dev/null 2>&1; then apt_install "Chromium (browser tests)" chromium; fi
 
