@@ -22,7 +22,7 @@ export function solvePath(input: unknown): SolveResult {
 }
 
 /** The path for a puzzle already known to be valid. */
-export function runPath(puzzle: Puzzle): SolveResult {
+function runPath(puzzle: Puzzle): SolveResult {
   const board = Board.fromPuzzle(puzzle)
   const steps: Step[] = []
   const marks = new Set<Cell>()

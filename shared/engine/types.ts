@@ -6,8 +6,8 @@
 import type { Cell } from '../grid'
 import type { Step } from '../schemas/step'
 
-export type { Cell, Digit, HouseKind, HouseRef } from '../grid'
-export type { ChainLink, Elimination, FactsKind, FactsOf, Placement, Step, StepFacts, TechniqueId } from '../schemas/step'
+export type { Cell, Digit, HouseRef } from '../grid'
+export type { ChainLink, Elimination, FactsKind, FactsOf, Step, StepFacts, TechniqueId } from '../schemas/step'
 
 /** A puzzle after parsing: givens as digits (0 = empty), thermometers as cell paths, bulb first. */
 export interface Puzzle {

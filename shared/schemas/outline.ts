@@ -21,7 +21,7 @@ const HOUR_MS = 3_600_000
 /** Longest target length or aligned time an outline takes. */
 export const DAY_MS = 24 * HOUR_MS
 
-export const outlineLineSchema = z.object({
+const outlineLineSchema = z.object({
   id: z.int().min(1),
   kind: z.enum(['intro', 'step', 'outro']),
   /** indices into `steps`, consecutive and ascending; empty for intro and outro */
@@ -39,7 +39,7 @@ export const outlineLineSchema = z.object({
 })
 export type OutlineLine = z.infer<typeof outlineLineSchema>
 
-export const chapterSchema = z.object({
+const chapterSchema = z.object({
   /** the line the chapter starts at */
   lineId: z.int().min(1),
   title: z.string().trim().min(1).max(100),

@@ -10,18 +10,18 @@ import { z } from 'zod'
 export const cellSchema = z.int().min(0).max(80)
 export type Cell = z.infer<typeof cellSchema>
 
-export const digitSchema = z.int().min(1).max(9)
+const digitSchema = z.int().min(1).max(9)
 export type Digit = z.infer<typeof digitSchema>
 
-export const houseKindSchema = z.enum(['row', 'column', 'box'])
+const houseKindSchema = z.enum(['row', 'column', 'box'])
 export type HouseKind = z.infer<typeof houseKindSchema>
 
 /** index 0..8; boxes are numbered row-major from the top-left box. */
-export const houseRefSchema = z.object({ kind: houseKindSchema, index: z.int().min(0).max(8) })
+const houseRefSchema = z.object({ kind: houseKindSchema, index: z.int().min(0).max(8) })
 export type HouseRef = z.infer<typeof houseRefSchema>
 
 /** Every technique the engine knows; the catalog, the solve order and the narration are keyed by these. */
-export const techniqueIdSchema = z.enum([
+const techniqueIdSchema = z.enum([
   'naked-single', // last candidate in a cell
   'hidden-single', // only place for a digit in a house
   'naked-pair',
@@ -37,7 +37,6 @@ export const techniqueIdSchema = z.enum([
 export type TechniqueId = z.infer<typeof techniqueIdSchema>
 
 const placementSchema = z.object({ cell: cellSchema, digit: digitSchema })
-export type Placement = z.infer<typeof placementSchema>
 
 const eliminationSchema = z.object({ cell: cellSchema, digits: z.array(digitSchema) })
 export type Elimination = z.infer<typeof eliminationSchema>

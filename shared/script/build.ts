@@ -12,7 +12,7 @@ import { formatClock } from './timecode'
 import { checkPace, estimateMs, lineActions, TIMING } from './timing'
 import { cellWords } from './words'
 
-export interface BuildOptions {
+interface BuildOptions {
   /** words a minute, 60–400; default 160 */
   pace?: number
   names?: NamingStyle

@@ -6,7 +6,7 @@ import type { Outline } from '../schemas/outline'
 import { timeline } from './timing'
 import { wordCount } from './words'
 
-export const CAPTION_ROW_CHARS = 42
+const CAPTION_ROW_CHARS = 42
 const CUE_CHARS = CAPTION_ROW_CHARS * 2
 
 export interface CaptionCue {
@@ -41,7 +41,7 @@ export function captionCues(outline: Outline): CaptionCue[] {
 }
 
 /** Sentences first; a long sentence breaks at a comma or dash, then between words. */
-export function chunkText(text: string): string[] {
+function chunkText(text: string): string[] {
   // A lone capital before a full stop is an initial ("A. Setter"), not the end of a sentence.
   const sentences = text.split(/(?<=[.!?])(?<!\b[A-Z]\.)\s+/).filter((s) => s.length > 0)
   const chunks: string[] = []

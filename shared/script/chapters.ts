@@ -17,7 +17,7 @@ export function autoChapters(src: ScriptSource, lines: OutlineLine[]): Chapter[]
   return chapters
 }
 
-export interface PublishedChapter {
+interface PublishedChapter {
   title: string
   startMs: number
   endMs: number

@@ -34,7 +34,7 @@ export function groupSteps(steps: Step[], thermometers: Cell[][]): number[][] {
 }
 
 /** True when the cells share a thermometer, a box, a row or a column. */
-export function oneArea(cells: Cell[], thermometers: Cell[][]): boolean {
+function oneArea(cells: Cell[], thermometers: Cell[][]): boolean {
   if (cells.length === 0) return false
   if (thermometers.some((path) => cells.every((c) => path.includes(c)))) return true
   return [boxOf, rowOf, colOf].some((of) => cells.every((c) => of(c) === of(cells[0])))

@@ -1,8 +1,8 @@
 /**
  * Script and timing: from an engine solve path to what a presenter says, when, and every export.
  */
-export { buildOutline, type BuildOptions } from './build'
-export { timeline, TIMING, type Timeline, type TimedLine, type TimedChapter } from './timing'
+export { buildOutline } from './build'
+export { timeline, TIMING, type Timeline, type TimedLine } from './timing'
 export { fitToTarget, type FitResult, type FitSuggestion } from './fit'
 export {
   editLineText,
@@ -20,7 +20,7 @@ export {
   alignLine,
   applyEdit,
 } from './edits'
-export { publishedChapters, type PublishedChapter } from './chapters'
+export { publishedChapters } from './chapters'
 export { toWebVttChapters, toWebVttCaptions } from './webvtt'
 export { toSrt } from './srt'
 export { toDescription } from './description'

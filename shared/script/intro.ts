@@ -14,7 +14,7 @@ export interface Credits {
 
 export const SETTER_PLACEHOLDER = '[setter]'
 export const LINK_PLACEHOLDER = '[puzzle link]'
-export const UNFINISHED_PLACEHOLDER = '[finish the solve here]'
+const UNFINISHED_PLACEHOLDER = '[finish the solve here]'
 
 const by = (c: Credits, joiner: string) => (c.author ? `${joiner}${c.author}` : '')
 

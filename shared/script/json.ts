@@ -14,7 +14,7 @@ export function fromOutlineJson(input: unknown): Outline {
     try {
       value = JSON.parse(input)
     } catch (e) {
-      throw new Error(`outline JSON can't be read: ${(e as Error).message}`)
+      throw new Error(`outline JSON can't be read: ${(e as Error).message}`, { cause: e })
     }
   }
   const parsed = outlineSchema.safeParse(value)

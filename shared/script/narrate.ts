@@ -63,7 +63,7 @@ function renderSteps(src: ScriptSource, line: LineShape, phrasing: number, n: Na
 }
 
 /** How many phrasings a line can take. */
-export function phrasingCount(src: ScriptSource, line: LineShape): number {
+function phrasingCount(src: ScriptSource, line: LineShape): number {
   if (line.kind === 'intro') return INTRO.length
   if (line.kind === 'outro') return OUTRO.length
   if (line.steps.length === 1) return narrationOf(src.steps[line.steps[0]]).phrasings().length

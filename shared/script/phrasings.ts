@@ -29,7 +29,7 @@ export interface Said {
 export type Phrasing<K extends FactsKind> = (f: FactsOf<K>, s: Said) => string
 
 /** "the cell at row 3, column 4" in words, "r3c4" in coordinates. */
-export function theCell(cell: Cell, n: Namer): string {
+function theCell(cell: Cell, n: Namer): string {
   return n.style === 'coords' ? cellWords(cell, n) : `the cell at ${cellWords(cell, n)}`
 }
 

@@ -65,7 +65,7 @@ export interface TimedLine {
   aligned: boolean
 }
 
-export interface TimedChapter {
+interface TimedChapter {
   lineId: number
   title: string
   startMs: number

@@ -1,7 +1,7 @@
 /** The techniques the engine knows: plain-words name first, trade term second, relative difficulty. */
 import type { TechniqueId } from '../types'
 
-export interface TechniqueInfo {
+interface TechniqueInfo {
   /** Gridcue's own words, shown first on screen */
   plainName: string
   /** the name solvers commonly use */

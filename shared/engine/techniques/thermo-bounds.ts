@@ -11,7 +11,7 @@ import { Picker, type Technique } from './deduction'
 import { TECHNIQUES } from './catalog'
 
 /** One chain of tightened cells that all owe their new bound to one source cell. */
-export interface BoundRun {
+interface BoundRun {
   direction: 'min' | 'max'
   /** position of the source cell on the thermometer */
   source: number
@@ -25,7 +25,7 @@ export interface BoundRun {
  * unless `throughBreak` is set: then the walk stops at the break and reports it as a run that
  * empties that cell, which is how the contradiction search sees a dead end on a thermometer.
  */
-export function boundRuns(digits: Uint8Array, cand: Uint16Array, t: Int8Array, direction: 'min' | 'max', throughBreak = false): BoundRun[] {
+function boundRuns(digits: Uint8Array, cand: Uint16Array, t: Int8Array, direction: 'min' | 'max', throughBreak = false): BoundRun[] {
   const n = t.length
   const runs: BoundRun[] = []
   let bound = direction === 'min' ? 0 : 10

@@ -8,7 +8,7 @@ import { Picker, eliminationsOf, type Technique } from './deduction'
 import { TECHNIQUES } from './catalog'
 
 /** Mask of the digits position i (0-based) of an n-cell thermometer may hold. */
-export function lengthMask(i: number, n: number): number {
+function lengthMask(i: number, n: number): number {
   return digitsAbove(i) & digitsBelow(11 - n + i)
 }
 

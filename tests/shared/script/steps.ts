@@ -7,7 +7,7 @@ import fixtures from '../../fixtures/thermo-puzzles.json'
 import type { Cell, Digit, HouseRef, Puzzle, SolveResult, Step, StepFacts, TechniqueId } from '../../../shared/engine/types'
 import { boxOf, colOf, rowOf } from '../../../shared/grid'
 
-export const SOLUTION: string = fixtures.puzzles.find((p) => p.id === 'GT03')!.solution
+const SOLUTION: string = fixtures.puzzles.find((p) => p.id === 'GT03')!.solution
 export const sol = (cell: Cell): Digit => Number(SOLUTION[cell])
 export const rc = (r: number, c: number): Cell => (r - 1) * 9 + (c - 1)
 
