@@ -1,0 +1,168 @@
+/**
+ * API load benchmark (not a test): autocannon against the built server in its own process and a
+ * real PostgreSQL on loopback. Reads a 150-step outline, the puzzle list, saves a script line with
+ * fresh versions, and reads again while cue-sheet PDFs are being made. Needs DATABASE_URL (an
+ * empty database is migrated and seeded); `npm run bench:api` provides one.
+ */
+import { spawn, type ChildProcess } from 'node:child_process'
+import { cpus } from 'node:os'
+import autocannon from 'autocannon'
+import type { OutlineRecord, PuzzleRecord } from '../shared/schemas/studio'
+import { generateThermo } from '../tests/helpers/generate-thermo'
+
+const ROOT = new URL('..', import.meta.url)
+const SECONDS = Number(process.env.BENCH_SECONDS ?? 10)
+const CONNECTIONS = 20
+const SAVE_CONNECTIONS = 10
+// generateThermo(5007): a fresh thermometer puzzle whose path has about 150 steps
+const LONG_PUZZLE_SEED = 5007
+
+interface Figures {
+  name: string
+  requestsPerSecond: number
+  p50: number
+  p99: number
+  non2xx: number
+  errors: number
+}
+
+const server = await startServer()
+try {
+  const base = server.url
+  const token = await signIn(base, 'presenter@gridcue.example', 'gridcue-demo')
+  const auth = { authorization: `Bearer ${token}`, 'content-type': 'application/json' }
+  const channelId = ((await api(base, 'GET', '/api/channels', token)) as { id: number }[])[0].id
+  const puzzle = (await api(base, 'POST', `/api/channels/${channelId}/puzzles`, token, longPuzzle())) as PuzzleRecord
+  const outlines: OutlineRecord[] = []
+  for (let i = 0; i < SAVE_CONNECTIONS + 1; i++) {
+    outlines.push((await api(base, 'POST', `/api/channels/${channelId}/puzzles/${puzzle.id}/outlines`, token, { name: `Bench take ${i + 1}` })) as OutlineRecord)
+  }
+  const readPath = `/api/channels/${channelId}/outlines/${outlines[0].id}`
+  console.log(`Gridcue API benchmark — ${new Date().toISOString().slice(0, 10)}, ${cpus().length} × ${cpus()[0]?.model ?? 'CPU'}, Node ${process.version}`)
+  console.log(`outline under test: ${outlines[0].stepCount} steps, ${Math.round(JSON.stringify(outlines[0]).length / 1024)} KB of JSON; ${SECONDS} s per run\n`)
+
+  const results: Figures[] = []
+  results.push(await run('outline read', { url: base + readPath, headers: auth, connections: CONNECTIONS }))
+  results.push(await run('puzzle list', { url: `${base}/api/channels/${channelId}/puzzles`, headers: auth, connections: CONNECTIONS }))
+  results.push(await run('line save (fresh versions)', saveOptions(base, channelId, outlines.slice(1), auth)))
+  const pdfs = pdfLoop(base, `/api/channels/${channelId}/outlines/${outlines[0].id}/cue-sheet.pdf?thumbnails=1`, token)
+  results.push(await run('outline read while PDFs are made', { url: base + readPath, headers: auth, connections: CONNECTIONS }))
+  const pdfStats = await pdfs.stop()
+
+  console.log('| load | requests/s | p50 ms | p99 ms | non-2xx | errors |')
+  console.log('| --- | ---: | ---: | ---: | ---: | ---: |')
+  for (const r of results) console.log(`| ${r.name} | ${r.requestsPerSecond.toFixed(0)} | ${r.p50} | ${r.p99} | ${r.non2xx} | ${r.errors} |`)
+  console.log(`\ncue-sheet PDFs made during the last run: ${pdfStats.count}, median ${pdfStats.median.toFixed(0)} ms each, ${pdfStats.failures} failed`)
+} finally {
+  server.process.kill('SIGTERM')
+}
+
+async function run(name: string, options: autocannon.Options): Promise<Figures> {
+  const result = await autocannon({ duration: SECONDS, ...options })
+  return {
+    name,
+    requestsPerSecond: result.requests.average,
+    p50: result.latency.p50,
+    p99: result.latency.p99,
+    non2xx: result.non2xx,
+    errors: result.errors,
+  }
+}
+
+/** Each connection saves its own outline, reading back the version each answer carries, so no save is stale. */
+function saveOptions(base: string, channelId: number, outlines: OutlineRecord[], headers: Record<string, string>): autocannon.Options {
+  const free = [...outlines]
+  type Context = { record?: OutlineRecord; saves?: number }
+  return {
+    url: base,
+    connections: outlines.length,
+    headers,
+    requests: [
+      {
+        method: 'PATCH',
+        setupRequest: (request, context: Context) => {
+          context.record ??= free.shift()
+          const record = context.record as OutlineRecord
+          context.saves = (context.saves ?? 0) + 1
+          const lines = record.outline.lines.map((line, i) => (i === 1 ? { ...line, text: `${line.text.replace(/ \(take \d+\)$/, '')} (take ${context.saves})`, edited: true } : line))
+          return {
+            ...request,
+            path: `/api/channels/${channelId}/outlines/${record.id}`,
+            body: JSON.stringify({ version: record.version, outline: { ...record.outline, lines } }),
+          }
+        },
+        onResponse: (status, body, context: Context) => {
+          if (status === 200) context.record = JSON.parse(body) as OutlineRecord
+        },
+      },
+    ],
+  }
+}
+
+/** Requests cue sheets one after another until stopped. */
+function pdfLoop(base: string, path: string, token: string) {
+  let running = true
+  const times: number[] = []
+  let failures = 0
+  const loop = (async () => {
+    while (running) {
+      const t0 = performance.now()
+      const response = await fetch(base + path, { headers: { authorization: `Bearer ${token}` } })
+      await response.arrayBuffer()
+      if (response.ok) times.push(performance.now() - t0)
+      else failures++
+    }
+  })()
+  return {
+    async stop() {
+      running = false
+      await loop
+      const sorted = [...times].sort((a, b) => a - b)
+      return { count: times.length, median: sorted[sorted.length >> 1] ?? 0, failures }
+    },
+  }
+}
+
+function longPuzzle() {
+  const g = generateThermo(LONG_PUZZLE_SEED)
+  return { title: 'Bench: long path', author: 'Gridcue benchmark', givens: g.givens, thermometers: g.thermometers }
+}
+
+async function signIn(base: string, email: string, password: string): Promise<string> {
+  const body = (await api(base, 'POST', '/api/auth/sign-in', null, { email, password })) as { token: string }
+  return body.token
+}
+
+async function api(base: string, method: string, path: string, token: string | null, body?: unknown): Promise<unknown> {
+  const response = await fetch(base + path, {
+    method,
+    headers: { 'content-type': 'application/json', ...(token ? { authorization: `Bearer ${token}` } : {}) },
+    body: body === undefined ? undefined : JSON.stringify(body),
+  })
+  const text = await response.text()
+  if (!response.ok) throw new Error(`${method} ${path} answered ${response.status}: ${text.slice(0, 300)}`)
+  return text ? JSON.parse(text) : undefined
+}
+
+/** Migrates and seeds, then starts the server as `npm start` does (production mode, own process). */
+async function startServer(): Promise<{ url: string; process: ChildProcess }> {
+  await new Promise<void>((resolve, reject) => {
+    const migrate = spawn(process.execPath, ['--import', 'tsx', 'scripts/migrate.ts', '--seed'], { cwd: ROOT, stdio: 'inherit' })
+    migrate.on('exit', (code) => (code === 0 ? resolve() : reject(new Error(`migrations failed (${code})`))))
+  })
+  const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+    cwd: ROOT,
+    env: { ...process.env, NODE_ENV: 'production', PORT: '0', LOG_LEVEL: 'silent', SIGN_IN_ATTEMPTS_PER_15_MIN: '1000' },
+    stdio: ['ignore', 'pipe', 'inherit'],
+  })
+  const url = await new Promise<string>((resolve, reject) => {
+    let out = ''
+    child.stdout?.on('data', (chunk: Buffer) => {
+      out += chunk.toString()
+      const match = /running at (http:\/\/[^/\s]+)/.exec(out)
+      if (match) resolve(match[1])
+    })
+    child.on('exit', (code) => reject(new Error(`the server ended before listening (${code}): ${out}`)))
+  })
+  return { url, process: child }
+}
