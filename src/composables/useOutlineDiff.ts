@@ -26,7 +26,7 @@ export function useOutlineDiff(mine: MaybeRefOrGetter<Outline | null>, theirs: M
   return { differences, sameLines }
 }
 
-export function diffOutlines(mine: Outline, theirs: Outline): OutlineDifference[] {
+function diffOutlines(mine: Outline, theirs: Outline): OutlineDifference[] {
   const out: OutlineDifference[] = []
   if (mine.pace !== theirs.pace) out.push({ key: 'pace', label: 'Pace', mine: `${mine.pace} wpm`, theirs: `${theirs.pace} wpm` })
   if (mine.names !== theirs.names) {

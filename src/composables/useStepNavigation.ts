@@ -98,10 +98,8 @@ export function useStepNavigation(options: StepNavigationOptions) {
   return { step, count, atStart, atEnd, typed, go, next, previous, first, last }
 }
 
-export type StepNavigation = ReturnType<typeof useStepNavigation>
-
 /** Step number from `?step=`; null when absent or not a whole number. */
-export function readStepQuery(raw: unknown): number | null {
+function readStepQuery(raw: unknown): number | null {
   const value = Array.isArray(raw) ? raw[0] : raw
   if (typeof value !== 'string' || !/^\d{1,5}$/.test(value)) return null
   return Number(value)
