@@ -9,14 +9,14 @@ export const signInSchema = z.object({
 })
 export type SignInInput = z.infer<typeof signInSchema>
 
-export const userSchema = z.object({
+const userSchema = z.object({
   id: z.number().int(),
   email: z.string(),
   name: z.string(),
 })
 export type User = z.infer<typeof userSchema>
 
-export const membershipSchema = z.object({
+const membershipSchema = z.object({
   channelId: z.number().int(),
   channelName: z.string(),
   channelSlug: z.string(),
@@ -43,4 +43,3 @@ export const apiErrorSchema = z.object({
   message: z.string(),
   details: z.unknown().optional(),
 })
-export type ApiErrorBody = z.infer<typeof apiErrorSchema>

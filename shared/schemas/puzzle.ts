@@ -7,7 +7,7 @@
 import { z } from 'zod'
 
 /** A cell name such as "r3c4": row then column, each 1..9. */
-export const cellNameSchema = z.string().regex(/^[rR][1-9][cC][1-9]$/, 'a cell name such as r3c4')
+const cellNameSchema = z.string().regex(/^[rR][1-9][cC][1-9]$/, 'a cell name such as r3c4')
 
 /** The structure of a puzzle file, without checking givens or cell names. */
 export const puzzleFileShape = z.object({

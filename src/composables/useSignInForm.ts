@@ -7,7 +7,7 @@ import { useSessionStore } from '@/stores/session'
 type Field = keyof SignInInput
 export type SignInFieldErrors = Partial<Record<Field, string>>
 
-export const BAD_CREDENTIALS_MESSAGE = 'E-mail or password is wrong'
+const BAD_CREDENTIALS_MESSAGE = 'E-mail or password is wrong'
 
 export interface UseSignInFormOptions {
   onSignedIn: () => void | Promise<void>

@@ -4,6 +4,7 @@ import { roleCan } from '@shared/permissions'
 import type { Action } from '@shared/permissions'
 import { useSessionStore } from '@/stores/session'
 import SignInView from '@/views/SignInView.vue'
+import { safeRedirect } from './safe-redirect'
 
 declare module 'vue-router' {
   interface RouteMeta {
@@ -19,12 +20,13 @@ declare module 'vue-router' {
   }
 }
 
-export type RouteName = 'sign-in' | 'home' | 'library' | 'channel-members' | 'puzzle' | 'studio' | 'not-found'
+/** Every route is named, and only with one of these. */
+type RouteName = 'sign-in' | 'home' | 'library' | 'channel-members' | 'puzzle' | 'studio' | 'not-found'
 
 /** Why the guard sent someone to the home page instead of where they asked to go. */
 export type HomeNotice = 'forbidden' | 'access-unchecked'
 
-export const routes: RouteRecordRaw[] = [
+export const routes: (RouteRecordRaw & { name: RouteName })[] = [
   { path: '/sign-in', name: 'sign-in', component: SignInView },
   { path: '/', name: 'home', component: () => import('@/views/HomeView.vue'), meta: { requiresAuth: true } },
   {
@@ -62,7 +64,7 @@ export const routes: RouteRecordRaw[] = [
 ]
 
 /** The one navigation guard: sign-in first, then the route's `access` action. */
-export async function sessionGuard(to: RouteLocationNormalized): Promise<true | RouteLocationRaw> {
+async function sessionGuard(to: RouteLocationNormalized): Promise<true | RouteLocationRaw> {
   const session = useSessionStore()
   const signedIn = session.checkExpiry()
 
@@ -98,11 +100,4 @@ export function createAppRouter(history: RouterHistory, routeList: RouteRecordRa
 
 function homeWith(notice: HomeNotice): RouteLocationRaw {
   return { name: 'home', query: { notice } }
-}
-
-/** Only same-app paths: an absolute or protocol-relative URL in `redirect` would be an open redirect. */
-export function safeRedirect(raw: unknown): string {
-  if (typeof raw !== 'string' || !raw.startsWith('/') || raw.startsWith('//') || raw.startsWith('/\\')) return '/'
-  if (raw === '/sign-in' || raw.startsWith('/sign-in?')) return '/'
-  return raw
 }

@@ -1,10 +1,6 @@
-import request from 'supertest'
-import type { Express } from 'express'
-import type { Db } from '../../server/db/knex'
-import type { PuzzleDraft, PuzzleRecord } from '../../shared/schemas/studio'
+import type { PuzzleDraft } from '../../shared/schemas/studio'
 import classic from '../fixtures/classic-puzzles.json'
 import thermo from '../fixtures/thermo-puzzles.json'
-import type { Actor } from './api'
 
 export interface FixturePuzzle {
   id: string
@@ -42,26 +38,4 @@ export function withoutSolution(p: FixturePuzzle): string {
     }
   }
   throw new Error('no cell to spoil')
-}
-
-/** Sends a request as one demo role (or anonymously). */
-export function send(app: Express, tokens: Record<Actor, string | undefined>, actor: Actor, method: 'get' | 'post' | 'put' | 'patch' | 'delete', path: string, body?: object) {
-  let req = request(app)[method](path)
-  if (tokens[actor]) req = req.set('Authorization', tokens[actor]!)
-  return body === undefined ? req : req.send(body)
-}
-
-/** Creates a puzzle through the API as the owner. */
-export async function postPuzzle(app: Express, ownerToken: string, channelId: number, draft: PuzzleDraft): Promise<PuzzleRecord> {
-  const res = await request(app).post(`/api/channels/${channelId}/puzzles`).set('Authorization', ownerToken).send(draft)
-  if (res.status !== 201) throw new Error(`creating a puzzle failed: ${res.status} ${JSON.stringify(res.body)}`)
-  return res.body
-}
-
-/** A second channel in which only the demo owner is a member, for cross-channel checks. */
-export async function otherChannelOfOwner(db: Db, ownerEmail: string): Promise<number> {
-  const [{ id }] = await db('channels').insert({ name: 'Second Shelf', slug: `second-shelf-${Date.now()}` }).returning('id')
-  const owner = await db('users').where({ email: ownerEmail }).first()
-  await db('memberships').insert({ user_id: owner!.id, channel_id: id, role: 'owner' })
-  return id
 }
