@@ -25,7 +25,7 @@ const cellName = (c: number) => `r${Math.floor(c / 9) + 1}c${(c % 9) + 1}`
 const suite = useBrowserSuite()
 
 async function centreOf(page: Page, cell: number) {
-  const box = await page.locator(`svg[role="grid"] [data-cell="${cell}"]`).first().boundingBox()
+  const box = await page.getByRole('gridcell', { name: new RegExp(`^${cellName(cell)},`) }).first().boundingBox()
   if (!box) throw new Error(`cell ${cellName(cell)} is not on screen`)
   return { x: box.x + box.width / 2, y: box.y + box.height / 2 }
 }
@@ -79,14 +79,14 @@ describe('presenter: from an empty puzzle to an edited, saved outline (Chromium)
     await page.waitForURL((url) => Number(url.searchParams.get('step')) > 10)
 
     // edit the first script line after the intro and wait for the autosave
-    const line = page.getByLabel(/^Line 2 \(/)
+    const line = page.getByRole('textbox', { name: /^Line 2 \(/ })
     await line.fill('Let me point at the first thing I notice: the thermometer we just drew.')
     await line.blur()
     await page.getByRole('status').getByText('Saved', { exact: true }).waitFor({ timeout: 20_000 })
 
     await page.reload()
     await page.getByRole('group', { name: 'Replay' }).waitFor()
-    await expect.poll(() => page.getByLabel(/^Line 2 \(/).inputValue()).toBe(
+    await expect.poll(() => page.getByRole('textbox', { name: /^Line 2 \(/ }).inputValue()).toBe(
       'Let me point at the first thing I notice: the thermometer we just drew.',
     )
     expect(new URL(page.url()).searchParams.get('step')).not.toBeNull()
