@@ -26,10 +26,6 @@ export const useStudioStore = defineStore('studio', () => {
   /** Show the trade term after the plain-words technique name. */
   const showTradeTerms = ref(saved.showTradeTerms)
 
-  function setPane(next: StudioPane): void {
-    pane.value = next
-  }
-
   watch([pane, followStep, showTradeTerms], () => {
     const value: SavedPrefs = { pane: pane.value, followStep: followStep.value, showTradeTerms: showTradeTerms.value }
     try {
@@ -39,7 +35,7 @@ export const useStudioStore = defineStore('studio', () => {
     }
   })
 
-  return { pane, followStep, showTradeTerms, setPane }
+  return { pane, followStep, showTradeTerms }
 })
 
 function readSaved(): SavedPrefs {
