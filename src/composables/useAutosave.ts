@@ -1,5 +1,6 @@
 import { computed, onScopeDispose, ref, shallowRef, toRaw, toValue, watch } from 'vue'
 import type { MaybeRefOrGetter, Ref } from 'vue'
+import { useTimeoutFn } from '@vueuse/core'
 import { z } from 'zod'
 import { outlineSchema } from '@shared/schemas/outline'
 import type { Outline } from '@shared/schemas/outline'
@@ -63,7 +64,9 @@ export function useAutosave(options: AutosaveOptions) {
   const baseline = shallowRef<Outline | null>(null)
   /** The server's copy when the screen opened, for "discard restored edits". */
   let opened: Outline | null = null
-  let timer: ReturnType<typeof setTimeout> | undefined
+  // One pending save at a time: each edit pushes it back (a quiet second after the last), a failure sets it for later.
+  let nextSaveIn = delayMs
+  const saveTimer = useTimeoutFn(() => void saveNow(), () => nextSaveIn, { immediate: false })
   let inFlight: Promise<void> | null = null
   /** the screen is gone: a failed last save is not retried in the background */
   let disposed = false
@@ -101,7 +104,7 @@ export function useAutosave(options: AutosaveOptions) {
   watch(options.outline, (next) => {
     if (!next || version.value === null) return
     if (next === baseline.value) {
-      clearTimeout(timer)
+      saveTimer.stop()
       removeLocal()
       if (status.value !== 'saving' && status.value !== 'conflict') status.value = 'saved'
       return
@@ -113,13 +116,13 @@ export function useAutosave(options: AutosaveOptions) {
   })
 
   function schedule(ms: number): void {
-    clearTimeout(timer)
-    timer = setTimeout(() => void saveNow(), ms)
+    nextSaveIn = ms
+    saveTimer.start()
   }
 
   /** Saves at once (used on leaving the screen); resolves when this round is over. */
   function saveNow(): Promise<void> {
-    clearTimeout(timer)
+    saveTimer.stop()
     if (inFlight) return inFlight
     inFlight = run().finally(() => {
       inFlight = null
@@ -196,7 +199,7 @@ export function useAutosave(options: AutosaveOptions) {
     conflict.value = null
     version.value = c.theirs.version
     baseline.value = toRaw(c.theirs.outline)
-    clearTimeout(timer)
+    saveTimer.stop()
     options.replace(baseline.value)
     removeLocal()
     status.value = 'saved'
@@ -252,7 +255,7 @@ export function useAutosave(options: AutosaveOptions) {
     disposed = true
     // Leaving the screen: send what's pending now rather than drop the timer (the local copy stays until it lands).
     if (status.value === 'unsaved') void saveNow()
-    else clearTimeout(timer)
+    else saveTimer.stop()
   })
 
   return {
