@@ -86,6 +86,8 @@ describe('StudioView', { timeout: 20_000 }, () => {
     serve('presenter', recordFor(doc))
     const { router } = await openStudio(PATH)
     expect(replay()).toHaveTextContent('The givens, before any step')
+    // From here on the clock moves only when the test moves it, so "not yet announced" can't race real time.
+    vi.useFakeTimers()
 
     await user().keyboard('{ArrowRight}{ArrowRight}')
     expect(replay()).toHaveTextContent(`Step 2 of ${doc.steps.length}`)
@@ -94,7 +96,9 @@ describe('StudioView', { timeout: 20_000 }, () => {
     const spoken = `Step 2: ${second.plainName}. ${doc.steps[1].text}`
     expect(screen.queryByText(spoken)).not.toBeInTheDocument()
 
-    await vi.advanceTimersByTimeAsync(500)
+    await vi.advanceTimersByTimeAsync(499)
+    expect(screen.queryByText(spoken)).not.toBeInTheDocument()
+    await vi.advanceTimersByTimeAsync(1)
     expect(screen.getByText(spoken)).toBeInTheDocument()
     expect(router.currentRoute.value.query.step).toBe('2')
   })
