@@ -1,3 +1,5 @@
+import type { StaleBody } from '../shared/schemas/studio'
+
 /** An error meant for the API caller: its status, a stable code and a message a person understands. */
 export class HttpError extends Error {
   readonly isOperational = true
@@ -17,10 +19,10 @@ export const forbidden = (message = 'Your role in this channel does not allow th
   new HttpError(403, 'forbidden', message)
 
 /** A save based on an old version: nothing was written, and the caller gets the current copy to compare with. */
-export const stale = (what: string, current: unknown) =>
+export const stale = <T>(what: string, current: T) =>
   new HttpError(
     409,
     'stale',
     `Someone saved a newer version of this ${what} while you were editing. Nothing of yours was overwritten: compare with the current copy and save again.`,
-    { current },
+    { current } satisfies StaleBody<T>['details'],
   )

@@ -1,3 +1,4 @@
+import type { StaleBody } from '@shared/schemas/studio'
 import type { Parser } from './http'
 import { ApiError, isApiError } from './http'
 
@@ -16,15 +17,14 @@ export function isStaleError<T = unknown>(value: unknown): value is StaleError<T
 }
 
 /**
- * Turns a 409 from a versioned save into a StaleError holding the server's copy (`details.current` of the body,
- * see StaleBody in shared/schemas/studio.ts); a copy that doesn't parse is fetched again.
+ * Turns a 409 from a versioned save into a StaleError holding the server's copy (`details.current` of its StaleBody); a copy that doesn't parse is fetched again.
  */
 export async function withStaleCheck<T>(save: () => Promise<T>, parser: Parser<T>, fetchCurrent: () => Promise<T>): Promise<T> {
   try {
     return await save()
   } catch (error) {
     if (!isApiError(error) || error.status !== 409) throw error
-    const details = error.details as { current?: unknown } | undefined
+    const details = error.details as Partial<StaleBody<unknown>['details']> | undefined
     const current = readQuietly(parser, details?.current) ?? (await fetchCurrent())
     throw new StaleError(error.message || 'Someone else saved a newer version.', current)
   }

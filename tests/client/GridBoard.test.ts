@@ -105,6 +105,16 @@ describe('GridBoard', () => {
     for (const n of ['1', '2', '3']) expect(within(grid()).getByText(n)).toBeInTheDocument()
   })
 
+  it("should read a caller's help after its own description, not instead of it", () => {
+    const help = document.createElement('p')
+    help.id = 'grid-help'
+    help.textContent = 'Arrows move.'
+    document.body.append(help)
+    renderBoard({ thermometers: [[cellIndex(1, 1), cellIndex(1, 2)]], describedBy: 'grid-help' })
+    expect(grid()).toHaveAccessibleDescription('Thermometer 1: r1c1 (bulb), r1c2. Arrows move.')
+    help.remove()
+  })
+
   it('should have no description when nothing is drawn across cells', () => {
     renderBoard()
     expect(grid()).not.toHaveAttribute('aria-describedby')

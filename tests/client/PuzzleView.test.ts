@@ -104,7 +104,7 @@ describe('PuzzleView', () => {
   })
 
   it('should show the fields and the permission reminder, and point at no cell before anything is entered', async () => {
-    const { problemCells } = await open('/channels/1/puzzles/new')
+    const { problemCells, grid } = await open('/channels/1/puzzles/new')
 
     expect(screen.getByRole('heading', { level: 1 })).toHaveTextContent('New puzzle')
     for (const label of ['Title', 'Setter', 'Link to the puzzle', 'First published', 'Notes', 'Givens as text']) {
@@ -113,6 +113,8 @@ describe('PuzzleView', () => {
     expect(screen.getByText(/only with its setter's permission/)).toBeVisible()
     // an empty grid has many solutions, but nothing is pointed at before anything is entered
     expect(problemCells()).toEqual([])
+    // the keyboard help is read with the grid, since the grid is where the keys work
+    expect(grid()).toHaveAccessibleDescription(/^Arrows move, 1 – 9 set a given/)
   })
 
   it('should check the grid a quarter second after the last edit and then say "Several solutions"', async () => {
