@@ -12,7 +12,8 @@ const alias = {
 export default defineConfig({
   plugins: [vue(), Components({ dts: 'src/components.d.ts', dirs: [], resolvers: [PrimeVueResolver()] })],
   resolve: { alias },
-  server: { proxy: { '/api': 'http://127.0.0.1:5180' } },
+  // the API beside `npm run dev` listens on PORT, like the server itself
+  server: { proxy: { '/api': `http://127.0.0.1:${process.env.PORT ?? 5180}` } },
   build: { outDir: 'dist', chunkSizeWarningLimit: 800 },
   test: {
     projects: [

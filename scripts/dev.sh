@@ -3,12 +3,7 @@
 # and the database if this run started it. Arguments go to Vite (`npm run dev -- --port 5190`).
 source "$(dirname "$0")/lib/setup.sh"
 
-PG_PORT=${GRIDCUE_PG_PORT:-5433}
-ensure_dependencies
-ensure_jwt_secret
-trap close_database EXIT
-open_database main "$PG_PORT" gridcue
-run_tsx scripts/migrate.ts --seed
+prepare_app_database
 
 export NODE_ENV=development
 cd "$ROOT"

@@ -2,14 +2,7 @@
 # `npm start`: dependencies, PostgreSQL on loopback (or DATABASE_URL), migrations, demo seed, client build, server.
 source "$(dirname "$0")/lib/setup.sh"
 
-PG_PORT=${GRIDCUE_PG_PORT:-5433}
-ensure_dependencies
-ensure_jwt_secret
-
-trap close_database EXIT
-open_database main "$PG_PORT" gridcue
-
-run_tsx scripts/migrate.ts --seed
+prepare_app_database
 
 # Rebuild the client only when a source file is newer than the last build.
 if [ ! -f "$ROOT/dist/index.html" ] || [ -n "$(find "$ROOT/src" "$ROOT/shared" "$ROOT/index.html" "$ROOT/vite.config.ts" -newer "$ROOT/dist/index.html" -print -quit)" ]; then

@@ -129,6 +129,16 @@ close_database() {
   OPENED_CLUSTER=
 }
 
+# What npm start and npm run dev share: dependencies, the JWT secret, the project database (stopped on
+# exit if this run started it), migrations and the demo seed.
+prepare_app_database() {
+  ensure_dependencies
+  ensure_jwt_secret
+  trap close_database EXIT
+  open_database main "${GRIDCUE_PG_PORT:-5433}" gridcue
+  run_tsx scripts/migrate.ts --seed
+}
+
 ensure_database() {
   local port=$1 db=$2
   if ! "$PG_BIN/psql" -h 127.0.0.1 -p "$port" -U postgres -tAc "select 1 from pg_database where datname='$db'" | grep -q 1; then

@@ -75,6 +75,20 @@ function requestLog(): string[] {
   return log
 }
 
+/** The saved puzzle 42, with every PUT body kept (in order) and answered by `answer`. */
+function savesOfExistingPuzzle(answer: (body: Record<string, unknown>) => Response): Record<string, unknown>[] {
+  const bodies: Record<string, unknown>[] = []
+  api.use(
+    ...existingPuzzle(),
+    http.put(apiPath('/channels/1/puzzles/42'), async ({ request }) => {
+      const body = (await request.json()) as Record<string, unknown>
+      bodies.push(body)
+      return answer(body)
+    }),
+  )
+  return bodies
+}
+
 async function open(path: string, role: Membership['role'] = 'presenter') {
   api.use(signedInAs(role))
   const user = userEvent.setup({ advanceTimers: vi.advanceTimersByTime })
@@ -209,15 +223,7 @@ describe('PuzzleView', () => {
   })
 
   it('should send the version it read when saving an existing puzzle', async () => {
-    const bodies: Record<string, unknown>[] = []
-    api.use(
-      ...existingPuzzle(),
-      http.put(apiPath('/channels/1/puzzles/42'), async ({ request }) => {
-        const body = (await request.json()) as Record<string, unknown>
-        bodies.push(body)
-        return HttpResponse.json({ ...recordFixture(), ...body, version: 4 })
-      }),
-    )
+    const bodies = savesOfExistingPuzzle((body) => HttpResponse.json({ ...recordFixture(), ...body, version: 4 }))
     const { user, button } = await open('/channels/1/puzzles/42')
     const title = screen.getByLabelText('Title')
     expect(title).toHaveValue('Morning climb')
@@ -239,18 +245,11 @@ describe('PuzzleView', () => {
 
     /** PUT answers 409 with their copy unless the save is over their version. */
     function staleUntilOverTheirs() {
-      const bodies: Record<string, unknown>[] = []
-      api.use(
-        ...existingPuzzle(),
-        http.put(apiPath('/channels/1/puzzles/42'), async ({ request }) => {
-          const body = (await request.json()) as Record<string, unknown>
-          bodies.push(body)
-          return body.version === theirs.version
-            ? HttpResponse.json({ ...theirs, ...body, version: 6 })
-            : HttpResponse.json({ code: 'stale', message: 'Someone else saved this puzzle first.', details: { current: theirs } }, { status: 409 })
-        }),
+      return savesOfExistingPuzzle((body) =>
+        body.version === theirs.version
+          ? HttpResponse.json({ ...theirs, ...body, version: 6 })
+          : HttpResponse.json({ code: 'stale', message: 'Someone else saved this puzzle first.', details: { current: theirs } }, { status: 409 }),
       )
-      return bodies
     }
 
     async function saveOverTheirs() {

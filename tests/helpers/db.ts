@@ -1,3 +1,6 @@
+import knex from 'knex'
+import { afterAll, beforeAll } from 'vitest'
+import { knexConfig } from '../../knexfile'
 import { loadConfig } from '../../server/config'
 import { createDb, type Db } from '../../server/db/knex'
 import { seed as seedDemo } from '../../seeds/01_demo_channel'
@@ -11,6 +14,33 @@ export async function openTestDb(): Promise<Db> {
   const db = createDb(testConfig().db.url)
   await db.migrate.latest()
   return db
+}
+
+/**
+ * A database of its own for a suite that steps migrations up and down, so the other API tests' schema is
+ * never disturbed: created empty before the suite, dropped after it. Read `.db` inside tests and hooks.
+ */
+export function useScratchDatabase(suffix: string): { readonly db: Db } {
+  const url = new URL(testConfig().db.url)
+  const name = `${url.pathname.slice(1)}_${suffix}`
+  const admin = knex(knexConfig(url.toString()))
+  let scratch: Db | undefined
+  beforeAll(async () => {
+    await admin.raw(`drop database if exists "${name}" with (force)`)
+    await admin.raw(`create database "${name}"`)
+    scratch = knex(knexConfig(Object.assign(new URL(url), { pathname: `/${name}` }).toString()))
+  })
+  afterAll(async () => {
+    await scratch?.destroy()
+    await admin.raw(`drop database if exists "${name}" with (force)`)
+    await admin.destroy()
+  })
+  return {
+    get db() {
+      if (!scratch) throw new Error('useScratchDatabase: the database exists only inside tests and hooks')
+      return scratch
+    },
+  }
 }
 
 /** Empties every application table (not knex's own bookkeeping). */
