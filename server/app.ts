@@ -11,6 +11,7 @@ import { errorHandler, unknownRoute } from './middleware/error-handler'
 import { authEndpoints } from './routes/auth'
 import { channelEndpoints } from './routes/channels'
 import { endpointTable } from './routes/endpoint'
+import { healthEndpoints } from './routes/health'
 import { outlineEndpoints } from './routes/outlines'
 import { puzzleEndpoints } from './routes/puzzles'
 import { createEnginePool, type EnginePool } from './workers/engine-pool'
@@ -56,6 +57,7 @@ export function createApp({ db, config, logger, engine, clientDir = DEFAULT_CLIE
   channelEndpoints(api, db)
   puzzleEndpoints(api, db, engine)
   outlineEndpoints(api, db, engine)
+  healthEndpoints(api, db)
   app.use('/api', unknownRoute)
 
   if (existsSync(clientDir)) {

@@ -8,6 +8,8 @@ export class HttpError extends Error {
     readonly code: string,
     message: string,
     readonly details?: unknown,
+    /** more fields for the top level of the reply, beside code and message (the health check's report) */
+    readonly fields?: Record<string, unknown>,
   ) {
     super(message)
     this.name = 'HttpError'
@@ -25,4 +27,26 @@ export const stale = <T>(what: string, current: T) =>
     'stale',
     `Someone saved a newer version of this ${what} while you were editing. Nothing of yours was overwritten: compare with the current copy and save again.`,
     { current } satisfies StaleBody<T>['details'],
+  )
+
+const READ_METHODS = new Set(['GET', 'HEAD', 'OPTIONS'])
+
+/** The database did not answer: nothing was read or stored, and the same request may work in a moment. */
+export const databaseUnavailable = (method: string) =>
+  new HttpError(
+    503,
+    'database-unavailable',
+    READ_METHODS.has(method)
+      ? 'The database is unavailable, so this could not be loaded. Try again in a moment.'
+      : "The database is unavailable; this change was not saved — it is kept in this browser and will be sent when it's back.",
+  )
+
+/** An unexpected failure: nothing is known about what was stored, so a change is not claimed safe. */
+export const internalError = (method: string) =>
+  new HttpError(
+    500,
+    'internal',
+    READ_METHODS.has(method)
+      ? 'Something went wrong on our side. Please try again.'
+      : 'Something went wrong on our side, and this change may not have been saved. Please try again.',
   )

@@ -1,6 +1,6 @@
 import { createApp } from './app'
 import { loadConfig } from './config'
-import { createDb } from './db/knex'
+import { createDb, databaseAnswers } from './db/knex'
 import { createLogger } from './logger'
 import { createEnginePool } from './workers/engine-pool'
 
@@ -17,7 +17,7 @@ try {
 }
 
 const logger = createLogger(config.log.level)
-const db = createDb(config.db.url)
+const db = createDb(config.db.url, { timeoutMs: config.db.timeoutMs, poolMax: config.db.poolMax, logger })
 const engine = createEnginePool({ ...config.engine, logger })
 const app = createApp({ db, config, logger, engine })
 
@@ -31,6 +31,10 @@ const server = app.listen(config.http.port, config.http.host, (error?: Error) =>
   const address = server.address()
   const port = typeof address === 'object' && address ? address.port : config.http.port
   say(`\n  Gridcue is running at http://${config.http.host}:${port}/\n`)
+  // the app starts without its database and recovers when it comes: say so rather than leave it to the first 503
+  void databaseAnswers(db, config.db.timeoutMs).then((up) => {
+    if (!up) complain(`  The database is not answering yet: requests answer 503 until it is (/api/health reports it).\n`)
+  })
 })
 
 async function shutdown(signal: string) {

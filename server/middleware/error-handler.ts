@@ -1,18 +1,29 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express'
-import { HttpError } from '../errors'
+import { isConnectionFailure } from '../db/knex'
+import { databaseUnavailable, HttpError, internalError } from '../errors'
+
+/** What a 503 tells a client (and a load balancer) about when to come back, in seconds. */
+const RETRY_AFTER_SECONDS = 5
 
 export const unknownRoute: RequestHandler = (req, _res, next) =>
   next(new HttpError(404, 'not-found', `No API route for ${req.method} ${req.originalUrl.split('?')[0]}`))
 
-/** The one place errors become responses: known errors keep their message, anything else is a 500 without internals. */
+/**
+ * The one place errors become responses: known errors keep their message, a database that can't be
+ * reached is a 503 saying nothing was stored, anything else is a 500 without internals.
+ */
 export const errorHandler: ErrorRequestHandler = (error, req, res, _next) => {
-  const known = toHttpError(error)
-  if (known) {
-    res.status(known.status).json({ code: known.code, message: known.message, details: known.details })
-    return
+  let reply = toHttpError(error)
+  if (!reply && isConnectionFailure(error)) {
+    req.log?.warn({ err: error }, 'database unavailable')
+    reply = databaseUnavailable(req.method)
   }
-  req.log?.error({ err: error }, 'unhandled error')
-  res.status(500).json({ code: 'internal', message: 'Something went wrong on our side. Your saved work is safe; please try again.' })
+  if (!reply) {
+    req.log?.error({ err: error }, 'unhandled error')
+    reply = internalError(req.method)
+  }
+  if (reply.status === 503) res.set('Retry-After', String(RETRY_AFTER_SECONDS))
+  res.status(reply.status).json({ ...reply.fields, code: reply.code, message: reply.message, details: reply.details })
 }
 
 function toHttpError(error: unknown): HttpError | null {
