@@ -18,6 +18,9 @@ const envSchema = z.object({
   JWT_SECRET: z.string({ message: 'JWT_SECRET is required' }).min(32, { message: 'JWT_SECRET must be at least 32 characters' }),
   JWT_EXPIRES_IN_SECONDS: z.coerce.number().int().min(60).max(30 * 24 * 3600).default(12 * 3600),
   SIGN_IN_ATTEMPTS_PER_15_MIN: z.coerce.number().int().min(1).default(10),
+  SIGN_IN_ATTEMPTS_PER_ADDRESS_PER_15_MIN: z.coerce.number().int().min(1).default(30),
+  // set when a TLS-terminating proxy sits in front: only then may browsers be told to insist on https
+  BEHIND_TLS: z.stringbool().default(false),
   ENGINE_THREADS: z.coerce.number().int().min(1).max(64).default(DEFAULT_ENGINE_THREADS),
   ENGINE_TIMEOUT_MS: z.coerce.number().int().min(1000).default(30_000),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).optional(),
@@ -35,12 +38,13 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env) {
   const e = parsed.data
   return Object.freeze({
     env: e.NODE_ENV,
-    http: { host: e.HOST, port: e.PORT },
+    http: { host: e.HOST, port: e.PORT, behindTls: e.BEHIND_TLS },
     db: { url: e.DATABASE_URL, timeoutMs: e.DATABASE_TIMEOUT_MS, poolMax: e.DATABASE_POOL_MAX },
     auth: {
       jwtSecret: e.JWT_SECRET,
       tokenTtlSeconds: e.JWT_EXPIRES_IN_SECONDS,
       signInAttemptsPer15Min: e.SIGN_IN_ATTEMPTS_PER_15_MIN,
+      signInAttemptsPerAddressPer15Min: e.SIGN_IN_ATTEMPTS_PER_ADDRESS_PER_15_MIN,
     },
     engine: { threads: e.ENGINE_THREADS, timeoutMs: e.ENGINE_TIMEOUT_MS },
     log: { level: e.LOG_LEVEL ?? (e.NODE_ENV === 'test' ? 'silent' : 'info') },
