@@ -23,6 +23,8 @@ const envSchema = z.object({
   BEHIND_TLS: z.stringbool().default(false),
   ENGINE_THREADS: z.coerce.number().int().min(1).max(64).default(DEFAULT_ENGINE_THREADS),
   ENGINE_TIMEOUT_MS: z.coerce.number().int().min(1000).default(30_000),
+  // a cue sheet normally takes well under a second; one that runs long is stopped and the caller asked to retry
+  EXPORT_TIMEOUT_MS: z.coerce.number().int().min(1000).default(10_000),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).optional(),
 })
 
@@ -46,7 +48,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env) {
       signInAttemptsPer15Min: e.SIGN_IN_ATTEMPTS_PER_15_MIN,
       signInAttemptsPerAddressPer15Min: e.SIGN_IN_ATTEMPTS_PER_ADDRESS_PER_15_MIN,
     },
-    engine: { threads: e.ENGINE_THREADS, timeoutMs: e.ENGINE_TIMEOUT_MS },
+    // the worker threads: the engine's pool and the exports' pool (server/workers/engine-pool.ts)
+    engine: { threads: e.ENGINE_THREADS, timeoutMs: e.ENGINE_TIMEOUT_MS, exportTimeoutMs: e.EXPORT_TIMEOUT_MS },
     log: { level: e.LOG_LEVEL ?? (e.NODE_ENV === 'test' ? 'silent' : 'info') },
   })
 }
