@@ -26,6 +26,22 @@ export function findOutline(db: Db, channelId: number, outlineId: number): Promi
     .first('outlines.*')
 }
 
+/** What a cue sheet needs: the take's name, the puzzle's title and the document as JSON text, left unparsed. */
+export interface OutlineExportRow {
+  name: string
+  title: string
+  document: string
+}
+
+/** An outline's export fields, only when its puzzle belongs to the channel. */
+export function findOutlineForExport(db: Db, channelId: number, outlineId: number): Promise<OutlineExportRow | undefined> {
+  return db('outlines')
+    .join('puzzles', 'puzzles.id', 'outlines.puzzle_id')
+    .where('outlines.id', outlineId)
+    .andWhere('puzzles.channel_id', channelId)
+    .first<OutlineExportRow | undefined>('outlines.name', db.raw("outlines.document ->> 'title' as title"), db.raw('outlines.document::text as document'))
+}
+
 export async function insertOutline(db: Db, puzzleId: number, createdBy: number | null, fields: OutlineFields): Promise<OutlineRow> {
   const [row] = await db('outlines')
     .insert({ ...toColumns(db, fields), puzzle_id: puzzleId, created_by: createdBy })

@@ -3,13 +3,14 @@ import type { Db } from '../db/knex'
 import { cueSheetOf } from '../services/cue-sheets'
 import { duplicateOutline, makeOutline, outlineOf, outlinesOf, removeOutline, saveOutline } from '../services/outlines'
 import type { Engine } from '../workers/engine-pool'
+import type { Exports } from '../workers/export-pool'
 import { Download, type EndpointTable } from './endpoint'
 
 const takes = '/channels/:channelId/puzzles/:puzzleId/outlines'
 const outline = '/channels/:channelId/outlines/:outlineId'
 
 /** A puzzle's outlines (takes), and each outline by its id within the channel. */
-export function outlineEndpoints(api: EndpointTable, db: Db, engine: Engine): void {
+export function outlineEndpoints(api: EndpointTable, db: Db, engine: Engine & Exports): void {
   api.add({ method: 'get', path: takes, access: 'outline.read' }, ({ params }) => outlinesOf(db, params.channelId, params.puzzleId))
   api.add({ method: 'post', path: takes, access: 'outline.create', body: outlineCreateSchema, status: 201 }, ({ params, body, user }) =>
     makeOutline(db, engine, params.channelId, params.puzzleId, body, user),
@@ -20,7 +21,7 @@ export function outlineEndpoints(api: EndpointTable, db: Db, engine: Engine): vo
     saveOutline(db, params.channelId, params.outlineId, body),
   )
   api.add({ method: 'get', path: `${outline}/cue-sheet.pdf`, access: 'outline.read', query: cueSheetQuerySchema }, async ({ params, query }) => {
-    const { filename, pdf } = await cueSheetOf(db, params.channelId, params.outlineId, query.thumbnails)
+    const { filename, pdf } = await cueSheetOf(db, engine, params.channelId, params.outlineId, query.thumbnails)
     return new Download(filename, 'application/pdf', pdf)
   })
   api.add({ method: 'post', path: `${outline}/duplicate`, access: 'outline.create', status: 201 }, ({ params, user }) =>

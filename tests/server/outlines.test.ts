@@ -1,6 +1,9 @@
 import { describe, expect, it } from 'vitest'
+import { createLogger } from '../../server/logger'
+import { cueSheetOf } from '../../server/services/cue-sheets'
 import { makeOutline } from '../../server/services/outlines'
 import type { Engine } from '../../server/workers/engine-pool'
+import { createExportPool } from '../../server/workers/export-pool'
 import { parsePuzzle, solvePath } from '../../shared/engine/index'
 import { outlineSchema, type Outline } from '../../shared/schemas/outline'
 import type { OutlineRecord, PuzzleRecord } from '../../shared/schemas/studio'
@@ -219,6 +222,35 @@ describe('GET /api/channels/:channelId/outlines/:outlineId/cue-sheet.pdf', () =>
     expect(res.headers['content-disposition']).toBe('attachment; filename=four-fevers-take-1-cue-sheet.pdf')
     // PDF 1.x files open with "%PDF-" (ISO 32000-1, section 7.5.2)
     expect(Buffer.from(res.body).subarray(0, 5).toString('latin1')).toBe('%PDF-')
+  })
+
+  it('should keep answering other requests while a cue sheet with a 40,000-character word is laid out, and stop it at the time limit', async () => {
+    // written straight into the database: the schema refuses such a line now, but older documents may hold one
+    const copy = await copyOfFirst()
+    const outline = { ...copy.outline, lines: copy.outline.lines.map((l, i) => (i === 1 ? { ...l, text: 'x'.repeat(40_000) } : l)) }
+    await api.db('outlines').where({ id: copy.id }).update({ document: api.db.raw('?::jsonb', [JSON.stringify(outline)]) })
+    const exports = createExportPool({ threads: 1, timeoutMs: 1500, logger: createLogger('silent') })
+    try {
+      await cueSheetOf(api.db, exports, api.channelId, first.id, false) // the export thread is up
+      let settled = false
+      const slow = cueSheetOf(api.db, exports, api.channelId, copy.id, false).then(
+        () => 'made',
+        (error: unknown) => error,
+      )
+      void slow.finally(() => (settled = true))
+      const reads: number[] = []
+      while (!settled) {
+        const started = performance.now()
+        expect((await as('editor').get(outlinePath(first.id))).status).toBe(200)
+        reads.push(performance.now() - started)
+      }
+      expect(await slow).toMatchObject({ status: 503, code: 'export-timeout', message: 'The cue sheet took too long to make; please try again' })
+      // laid out on the request thread, the line held every request for seconds (issue #9)
+      expect(reads.length).toBeGreaterThan(5)
+      expect(Math.max(...reads)).toBeLessThan(750)
+    } finally {
+      await exports.destroy()
+    }
   })
 
   it('should answer 400 for a thumbnails value other than 0 or 1', async () => {

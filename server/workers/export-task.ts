@@ -1,0 +1,18 @@
+/**
+ * Heavy exports for the API, one export per task name. They run in the export pool's threads
+ * (export-pool.ts), so a layout that runs long never holds up other requests.
+ */
+import type { Outline } from '../../shared/schemas/outline'
+import { renderCueSheetPdf } from '../exports/cue-sheet-pdf'
+
+export interface CueSheetTask {
+  /** the stored outline document as JSON text, parsed here rather than on the request thread */
+  document: string
+  /** draw the grid beside each line */
+  thumbnails: boolean
+}
+
+/** The cue-sheet PDF of a stored (so already validated) outline document. */
+export function cueSheet({ document, thumbnails }: CueSheetTask): Promise<Buffer> {
+  return renderCueSheetPdf(JSON.parse(document) as Outline, { thumbnails })
+}
