@@ -1,4 +1,5 @@
 import type { Db } from './knex'
+import type { Outline } from '../../shared/schemas/outline'
 import type { OutlineRow } from './tables'
 
 export type OutlineFields = Pick<OutlineRow, 'name' | 'status' | 'step_count' | 'total_ms' | 'document'>
@@ -47,6 +48,38 @@ export async function insertOutline(db: Db, puzzleId: number, createdBy: number 
     .insert({ ...toColumns(db, fields), puzzle_id: puzzleId, created_by: createdBy })
     .returning('*')
   return row as OutlineRow
+}
+
+/** A save's new script: the document with the engine's part as the client sent it back, and what follows from it. */
+export interface ScriptSave {
+  /** a new name, or undefined to keep the stored one */
+  name: string | undefined
+  total_ms: number
+  document: Outline
+}
+
+/**
+ * Saves over `version` in one statement, only when the document's engine part (status, puzzle, steps)
+ * equals the stored one. PostgreSQL compares them, so the stored document is never sent here or parsed,
+ * and its steps are kept as stored. Undefined when nothing was written: the outline is missing or in
+ * another channel, someone saved a newer version first, or the engine part differs.
+ */
+export async function saveScript(db: Db, channelId: number, outlineId: number, version: number, save: ScriptSave): Promise<OutlineSummaryRow | undefined> {
+  const { steps, ...script } = save.document
+  const [row] = await db('outlines')
+    .where({ id: outlineId, version, status: script.status })
+    .whereIn('puzzle_id', db('puzzles').select('id').where({ channel_id: channelId }))
+    .whereRaw("document -> 'puzzle' = ?::jsonb", [JSON.stringify(script.puzzle)])
+    .whereRaw("document -> 'steps' = ?::jsonb", [JSON.stringify(steps)])
+    .update({
+      document: db.raw("jsonb_set(?::jsonb, '{steps}', document -> 'steps')", [JSON.stringify(script)]),
+      ...(save.name === undefined ? {} : { name: save.name }),
+      total_ms: save.total_ms,
+      version: version + 1,
+      updated_at: db.fn.now(),
+    })
+    .returning(SUMMARY_COLUMNS)
+  return row as OutlineSummaryRow | undefined
 }
 
 /** Saves over `version`; undefined when the row is gone or someone saved a newer version first. */

@@ -4,7 +4,7 @@ import { stepSchema, type Outline } from '../../shared/schemas/outline'
 import type { OutlineCreate, OutlineRecord, OutlineSave, OutlineSummary, PuzzleCheck } from '../../shared/schemas/studio'
 import { timeline } from '../../shared/script/index'
 import type { Db } from '../db/knex'
-import { deleteOutline, findOutline, insertOutline, listOutlines, updateOutline, type OutlineFields, type OutlineSummaryRow } from '../db/outlines'
+import { deleteOutline, findOutline, insertOutline, listOutlines, saveScript, updateOutline, type OutlineFields, type OutlineSummaryRow } from '../db/outlines'
 import { findPuzzle } from '../db/puzzles'
 import type { OutlineRow } from '../db/tables'
 import { HttpError, notFound, stale } from '../errors'
@@ -48,6 +48,18 @@ export async function makeOutline(db: Db, engine: Engine, channelId: number, puz
  * with the current copy). The engine's part (steps, puzzle, status) must come back unchanged.
  */
 export async function saveOutline(db: Db, channelId: number, outlineId: number, save: OutlineSave): Promise<OutlineRecord> {
+  const saved = await saveScript(db, channelId, outlineId, save.version, { name: save.name, total_ms: totalMsOf(save.outline), document: save.outline })
+  // the stored steps equal the ones sent back, so the saved document is the one sent
+  if (saved) return { ...toSummary(saved), outline: save.outline }
+  return saveAfterReading(db, channelId, outlineId, save)
+}
+
+/**
+ * The careful save, after the one-statement save wrote nothing: it reads the stored outline to say why
+ * (404, 409 with the current copy, or 400), and saves a document whose stored steps carry fields the
+ * schema drops (the request can't send those back, so PostgreSQL's comparison found a difference).
+ */
+async function saveAfterReading(db: Db, channelId: number, outlineId: number, save: OutlineSave): Promise<OutlineRecord> {
   const current = await existing(db, channelId, outlineId)
   if (current.version !== save.version) throw stale('outline', toRecord(current))
   // the stored steps go through the same schema as the request, so fields it drops don't count as changes
@@ -84,11 +96,13 @@ async function existing(db: Db, channelId: number, outlineId: number): Promise<O
   return row
 }
 
+const totalMsOf = (document: Outline) => Math.round(timeline(document).totalMs)
+
 const fieldsOf = (name: string, document: Outline): OutlineFields => ({
   name,
   status: document.status,
   step_count: document.steps.length,
-  total_ms: Math.round(timeline(document).totalMs),
+  total_ms: totalMsOf(document),
   document,
 })
 

@@ -165,6 +165,19 @@ describe('PATCH /api/channels/:channelId/outlines/:outlineId', () => {
     expect(res.body.outline).toEqual(copy.outline)
   })
 
+  it('should keep stored steps byte for byte, fields the schema doesn’t know included, when lines are saved', async () => {
+    const copy = await copyOfFirst()
+    // as if an engine had added fields after the outline was made: the step schema keeps unknown fields of
+    // a step but drops them inside its parts, so the second can't come back in a save
+    await api.db.raw(`update outlines set document = jsonb_set(jsonb_set(document, '{steps,0,note}', '"kept"'), '{steps,0,reason,note}', '"kept too"') where id = ?`, [copy.id])
+    const read: OutlineRecord = (await as('editor').get(outlinePath(copy.id))).body
+    const res = await as('editor').patch(outlinePath(copy.id), { version: 1, outline: retitled(read.outline, 'Edited around the notes.') })
+    expect(res.status).toBe(200)
+    const [stored] = (await api.db.raw(`select document #>> '{steps,0,note}' as note, document #>> '{steps,0,reason,note}' as inner, document #>> '{lines,1,text}' as text from outlines where id = ?`, [copy.id])).rows
+    expect(stored).toEqual({ note: 'kept', inner: 'kept too', text: 'Edited around the notes.' })
+    expect((await as('editor').get(outlinePath(copy.id))).body).toEqual(res.body)
+  })
+
   it('should answer 400 when the engine steps were changed', async () => {
     const copy = await copyOfFirst()
     const steps = copy.outline.steps.map((s, i) => (i === 0 ? { ...s, difficulty: s.difficulty + 1 } : s))
