@@ -19,6 +19,9 @@ export function isApiError(value: unknown): value is ApiError {
   return value instanceof ApiError
 }
 
+/** The code of the server's 503 while its database is away: nothing was read or stored, and a retry may work. */
+export const DATABASE_UNAVAILABLE = 'database-unavailable'
+
 /** Anything with a zod-like `parse`; every response body is checked against the shared contract. */
 export interface Parser<T> {
   parse(data: unknown): T

@@ -5,11 +5,15 @@ import { z } from 'zod'
 import { outlineSchema } from '@shared/schemas/outline'
 import type { Outline } from '@shared/schemas/outline'
 import type { OutlineRecord } from '@shared/schemas/studio'
-import { isApiError } from '@/api/http'
+import { DATABASE_UNAVAILABLE, isApiError } from '@/api/http'
 import { isStaleError } from '@/api/stale'
 import { useUnsavedChangesGuard } from '@/composables/useUnsavedChangesGuard'
 
-export type SaveStatus = 'saved' | 'saving' | 'unsaved' | 'conflict'
+/** `retrying`: a save failed for a reason that passes by itself (no connection, database away, server error) and is tried again. */
+export type SaveStatus = 'saved' | 'saving' | 'unsaved' | 'retrying' | 'conflict'
+
+/** Why saving waits to try again: the part of the status line after "Not saved —". */
+type RetryReason = 'database' | 'offline' | 'server'
 
 export interface AutosaveOptions {
   outlineId: MaybeRefOrGetter<number>
@@ -22,8 +26,10 @@ export interface AutosaveOptions {
   onSaved?: (record: OutlineRecord) => void
   /** Quiet time after the last edit before saving. */
   delayMs?: number
-  /** Wait before trying again after a failed save (network down, server error). */
+  /** Wait before the first new try after a failed save (network down, database away, server error); it doubles with each failure. */
   retryMs?: number
+  /** The longest wait between tries. */
+  maxRetryMs?: number
 }
 
 export interface SaveConflict {
@@ -45,13 +51,15 @@ export function localCopyKey(outlineId: number): string {
 
 /**
  * Saves the outline about a second after the last edit, with the version it was read at. Until the
- * server has it, the pending outline waits in localStorage. A save refused as stale (someone saved
- * first) becomes a conflict holding both copies; the person keeps theirs (saved over the newer
- * version) or takes the server's.
+ * server has it, the pending outline waits in localStorage. A save that fails for a passing reason
+ * (no connection, the database away, a server error) is tried again, waiting longer each time. A save
+ * refused as stale (someone saved first) becomes a conflict holding both copies; the person keeps
+ * theirs (saved over the newer version) or takes the server's.
  */
 export function useAutosave(options: AutosaveOptions) {
   const delayMs = options.delayMs ?? 1000
-  const retryMs = options.retryMs ?? 5000
+  const retryMs = options.retryMs ?? 2000
+  const maxRetryMs = options.maxRetryMs ?? 60_000
 
   const status = ref<SaveStatus>('saved')
   /** The server version the next save is based on. */
@@ -60,6 +68,9 @@ export function useAutosave(options: AutosaveOptions) {
   /** When a local copy from an earlier visit was put back; null when none was. */
   const restoredFrom = ref<string | null>(null)
   const lastError = ref<string | null>(null)
+  const retryReason = ref<RetryReason>('server')
+  /** Failed tries in a row, for the back-off; a save that lands starts it over. */
+  let failures = 0
   /** The last outline the server is known to hold; reference equality means "nothing to save". */
   const baseline = shallowRef<Outline | null>(null)
   /** The server's copy when the screen opened, for "discard restored edits". */
@@ -72,7 +83,7 @@ export function useAutosave(options: AutosaveOptions) {
   let disposed = false
 
   const key = computed(() => localCopyKey(toValue(options.outlineId)))
-  const label = computed(() => STATUS_LABELS[status.value])
+  const label = computed(() => (status.value === 'retrying' ? RETRY_LABELS[retryReason.value] : STATUS_LABELS[status.value]))
 
   /**
    * Call once with the record the server sent. Returns the outline to edit: the server's, or this
@@ -110,7 +121,8 @@ export function useAutosave(options: AutosaveOptions) {
       return
     }
     writeLocal(next)
-    if (status.value === 'conflict') return
+    // a pending retry sends the newest outline; an edit doesn't bring it forward (the server would only refuse again)
+    if (status.value === 'conflict' || status.value === 'retrying') return
     if (status.value !== 'saving') status.value = 'unsaved'
     schedule(delayMs)
   })
@@ -143,6 +155,7 @@ export function useAutosave(options: AutosaveOptions) {
       version.value = record.version
       baseline.value = sending
       lastError.value = null
+      failures = 0
       options.onSaved?.(record)
       if (options.outline.value === sending) {
         status.value = 'saved'
@@ -167,16 +180,28 @@ export function useAutosave(options: AutosaveOptions) {
       lastError.value = null
       return
     }
-    status.value = 'unsaved'
-    lastError.value = error instanceof Error ? error.message : 'The outline could not be saved.'
-    // Only what may pass by itself is retried (no connection, too many requests, a server error); a refusal
-    // such as 403 or a deleted outline stays on screen with its message while the copy waits locally.
-    if (mayPass(error) && !disposed) schedule(retryMs)
+    const message = error instanceof Error ? error.message : 'The outline could not be saved.'
+    const reason = retryReasonOf(error)
+    // A refusal such as 403 or a deleted outline stays on screen with its message while the copy waits locally.
+    if (!reason) {
+      status.value = 'unsaved'
+      lastError.value = message
+      return
+    }
+    status.value = 'retrying'
+    retryReason.value = reason
+    // the status line already says what an outage means; a server error's own words may tell more
+    lastError.value = reason === 'server' ? message : null
+    if (!disposed) schedule(backoff(failures++))
   }
 
-  function mayPass(error: unknown): boolean {
-    if (!isApiError(error)) return true
-    return error.status === 0 || error.status === 429 || error.status >= 500
+  /**
+   * The wait before the next try: doubling from retryMs up to maxRetryMs, and somewhere between half and all
+   * of that, so the browsers that were waiting for the database don't all come back in the same second.
+   */
+  function backoff(failedBefore: number): number {
+    const ceiling = Math.min(maxRetryMs, retryMs * 2 ** failedBefore)
+    return Math.round(ceiling / 2 + (Math.random() * ceiling) / 2)
   }
 
   /** Saves this browser's outline over the server's newer version. */
@@ -254,7 +279,7 @@ export function useAutosave(options: AutosaveOptions) {
   onScopeDispose(() => {
     disposed = true
     // Leaving the screen: send what's pending now rather than drop the timer (the local copy stays until it lands).
-    if (status.value === 'unsaved') void saveNow()
+    if (status.value === 'unsaved' || status.value === 'retrying') void saveNow()
     else saveTimer.stop()
   })
 
@@ -266,11 +291,25 @@ export function useAutosave(options: AutosaveOptions) {
 
 export type Autosave = ReturnType<typeof useAutosave>
 
-const STATUS_LABELS: Record<SaveStatus, string> = {
+const STATUS_LABELS: Record<Exclude<SaveStatus, 'retrying'>, string> = {
   saved: 'Saved',
   saving: 'Saving…',
   unsaved: 'Unsaved changes',
   conflict: 'Conflict',
+}
+
+const RETRY_LABELS: Record<RetryReason, string> = {
+  database: 'Not saved — database unavailable, kept in this browser; retrying…',
+  offline: "Not saved — can't reach Gridcue, kept in this browser; retrying…",
+  server: 'Not saved — the server had a problem, kept in this browser; retrying…',
+}
+
+/** Which failures pass by themselves and are tried again (null: a refusal, shown until the person acts). */
+function retryReasonOf(error: unknown): RetryReason | null {
+  if (!isApiError(error)) return 'server'
+  if (error.status === 0) return 'offline'
+  if (error.code === DATABASE_UNAVAILABLE) return 'database'
+  return error.status === 429 || error.status >= 500 ? 'server' : null
 }
 
 /** Structural equality of JSON-like data, whatever order the keys came in. */

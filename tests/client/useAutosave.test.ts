@@ -10,7 +10,7 @@ import { saveOutline } from '@/api/outlines'
 import StudioConflictDialog from '@/components/StudioConflictDialog.vue'
 import StudioSaveStatus from '@/components/StudioSaveStatus.vue'
 import { localCopyKey, useAutosave } from '@/composables/useAutosave'
-import type { Autosave, LocalCopy } from '@/composables/useAutosave'
+import type { Autosave, AutosaveOptions, LocalCopy } from '@/composables/useAutosave'
 import { useOutlineEditor } from '@/composables/useOutlineEditor'
 import type { OutlineEditor } from '@/composables/useOutlineEditor'
 import { outlineFor, recordFor } from '../helpers/studio-outline'
@@ -28,7 +28,7 @@ interface SentSave {
 }
 
 // The Studio's wiring of saving: the editor's outline, the real API module, the save status and the conflict dialog.
-function renderAutosave(record: OutlineRecord) {
+function renderAutosave(record: OutlineRecord, tuning: Pick<AutosaveOptions, 'retryMs' | 'maxRetryMs'> = {}) {
   let editor!: OutlineEditor
   let autosave!: Autosave
   const Harness = defineComponent({
@@ -39,6 +39,7 @@ function renderAutosave(record: OutlineRecord) {
         outline: editor.outline,
         save: (version, outline) => saveOutline(CHANNEL, OUTLINE_ID, { version, outline }),
         replace: editor.replace,
+        ...tuning,
       })
       editor.load(autosave.start(record))
       return () =>
@@ -220,7 +221,7 @@ describe('useAutosave', () => {
     expect(localCopy()).toBeNull()
   })
 
-  it('should keep the local copy and try again when a save fails', async () => {
+  it('should keep the local copy and try again after a server error, showing its message', async () => {
     let failing = true
     const sent: number[] = []
     api.use(
@@ -228,7 +229,7 @@ describe('useAutosave', () => {
         const body = (await request.json()) as SentSave
         sent.push(body.version)
         return failing
-          ? HttpResponse.json({ code: 'unavailable', message: 'Try again soon.' }, { status: 503 })
+          ? HttpResponse.json({ code: 'engine-busy', message: 'Try again soon.' }, { status: 503 })
           : HttpResponse.json(recordFor(body.outline, { version: 4 }))
       }),
     )
@@ -236,15 +237,163 @@ describe('useAutosave', () => {
     editor.apply({ op: 'setPace', pace: 175 })
     await vi.advanceTimersByTimeAsync(1000)
     await flushPromises()
-    expect(status()).toHaveTextContent('Unsaved changes— Try again soon.')
+    expect(status()).toHaveTextContent('Not saved — the server had a problem, kept in this browser; retrying…— Try again soon.')
     expect(localCopy()!.outline.pace).toBe(175)
 
     failing = false
-    await vi.advanceTimersByTimeAsync(5000)
+    // the first new try comes within retryMs (2 s by default)
+    await vi.advanceTimersByTimeAsync(2000)
     await flushPromises()
     expect(sent).toEqual([3, 3])
     expect(status()).toHaveTextContent(/^Saved$/)
     expect(localCopy()).toBeNull()
+  })
+
+  describe('while the database is unavailable (503 database-unavailable)', () => {
+    const NOT_STORED = "The database is unavailable; this change was not saved — it is kept in this browser and will be sent when it's back."
+    const WAITING = 'Not saved — database unavailable, kept in this browser; retrying…'
+
+    /** Saves answer 503 database-unavailable until `back()` (and again after `gone()`); every body sent is kept. */
+    function databaseAway() {
+      const sent: SentSave[] = []
+      let away = true
+      api.use(
+        http.patch(OUTLINE_URL, async ({ request }) => {
+          const body = (await request.json()) as SentSave
+          sent.push(body)
+          return away
+            ? HttpResponse.json({ code: 'database-unavailable', message: NOT_STORED }, { status: 503 })
+            : HttpResponse.json(recordFor(body.outline, { version: body.version + 1 }))
+        }),
+      )
+      return { sent, back: () => (away = false), gone: () => (away = true) }
+    }
+
+    /** Moves the fake clock by `ms` and lets the answers that come due arrive. */
+    async function wait(ms: number) {
+      await vi.advanceTimersByTimeAsync(ms)
+      await flushPromises()
+    }
+
+    beforeEach(() => {
+      // each wait is then exactly three quarters of its ceiling (the rest of the spread is random)
+      vi.spyOn(Math, 'random').mockReturnValue(0.5)
+    })
+    afterEach(() => {
+      vi.restoreAllMocks()
+    })
+
+    it('should say the change is kept in this browser, keep the local copy, and send it once the database is back', async () => {
+      const { sent, back } = databaseAway()
+      const { editor } = renderAutosave(recordFor(doc, { version: 3 }))
+      editor.apply({ op: 'hideLine', lineId: doc.lines[3].id })
+      await wait(1000)
+
+      expect(sent).toHaveLength(1)
+      expect(status()).toHaveTextContent(new RegExp(`^${WAITING}Try now$`))
+      expect(localCopy()).toMatchObject({ baseVersion: 3 })
+      expect(localCopy()!.outline.lines[3].hidden).toBe(true)
+
+      await wait(1500)
+      expect(sent).toHaveLength(2)
+      expect(status()).toHaveTextContent(WAITING)
+
+      back()
+      await wait(3000)
+      expect(sent.map((b) => b.version)).toEqual([3, 3, 3])
+      expect(status()).toHaveTextContent(/^Saved$/)
+      expect(localCopy()).toBeNull()
+    })
+
+    it('should wait longer after each failure, up to the longest wait, and start over once a save lands', async () => {
+      const { sent, back, gone } = databaseAway()
+      const { editor } = renderAutosave(recordFor(doc, { version: 3 }), { retryMs: 2000, maxRetryMs: 5000 })
+      editor.apply({ op: 'hideLine', lineId: doc.lines[3].id })
+      await wait(1000)
+      // ceilings 2 s, 4 s, then 5 s (the longest), each wait three quarters of it here
+      for (const expected of [1500, 3000, 3750, 3750]) {
+        const before = sent.length
+        await wait(expected - 1)
+        expect(sent).toHaveLength(before)
+        await wait(1)
+        expect(sent).toHaveLength(before + 1)
+      }
+
+      back()
+      await wait(3750)
+      expect(status()).toHaveTextContent(/^Saved$/)
+
+      // the next outage starts again from the first, short wait
+      gone()
+      editor.apply({ op: 'showLine', lineId: doc.lines[3].id })
+      await wait(1000)
+      expect(status()).toHaveTextContent(WAITING)
+      const failed = sent.length
+      await wait(1499)
+      expect(sent).toHaveLength(failed)
+      await wait(1)
+      expect(sent).toHaveLength(failed + 1)
+    })
+
+    it('should send the newest edits with the next try, without trying sooner because of them', async () => {
+      const { sent, back } = databaseAway()
+      const { editor } = renderAutosave(recordFor(doc, { version: 3 }))
+      editor.apply({ op: 'hideLine', lineId: doc.lines[3].id })
+      await wait(1000)
+      expect(sent).toHaveLength(1)
+
+      await wait(100)
+      editor.apply({ op: 'editLineText', lineId: doc.lines[4].id, text: 'Typed while the database was away.' })
+      await flushPromises()
+      expect(localCopy()!.outline.lines[4].text).toBe('Typed while the database was away.')
+      expect(status()).toHaveTextContent(WAITING)
+      back()
+      // an edit would save a second after it (1.1 s); the pending try is due at 1.5 s
+      await wait(1399)
+      expect(sent).toHaveLength(1)
+      await wait(1)
+      expect(sent).toHaveLength(2)
+      expect(sent[1].outline.lines[3].hidden).toBe(true)
+      expect(sent[1].outline.lines[4].text).toBe('Typed while the database was away.')
+      expect(status()).toHaveTextContent(/^Saved$/)
+    })
+
+    it('should try at once when "Try now" is pressed', async () => {
+      const { sent, back } = databaseAway()
+      const { editor } = renderAutosave(recordFor(doc, { version: 3 }))
+      editor.apply({ op: 'hideLine', lineId: doc.lines[3].id })
+      await wait(1000)
+      back()
+
+      await user().click(screen.getByRole('button', { name: 'Try now' }))
+      await flushPromises()
+      expect(sent).toHaveLength(2)
+      expect(status()).toHaveTextContent(/^Saved$/)
+    })
+  })
+
+  it("should retry while Gridcue can't be reached, saying so", async () => {
+    let offline = true
+    const sent: number[] = []
+    api.use(
+      http.patch(OUTLINE_URL, async ({ request }) => {
+        const body = (await request.json()) as SentSave
+        sent.push(body.version)
+        return offline ? HttpResponse.error() : HttpResponse.json(recordFor(body.outline, { version: 4 }))
+      }),
+    )
+    const { editor } = renderAutosave(recordFor(doc, { version: 3 }))
+    editor.apply({ op: 'setPace', pace: 175 })
+    await vi.advanceTimersByTimeAsync(1000)
+    await flushPromises()
+    expect(status()).toHaveTextContent(/^Not saved — can't reach Gridcue, kept in this browser; retrying…Try now$/)
+    expect(localCopy()!.outline.pace).toBe(175)
+
+    offline = false
+    await vi.advanceTimersByTimeAsync(2000)
+    await flushPromises()
+    expect(sent).toEqual([3, 3])
+    expect(status()).toHaveTextContent(/^Saved$/)
   })
 
   it('should ask before the tab closes while edits are not saved, and not once they are', async () => {
@@ -397,7 +546,7 @@ describe('useAutosave', () => {
     editor.apply({ op: 'hideLine', lineId: doc.lines[3].id })
     await vi.advanceTimersByTimeAsync(1000)
     await flushPromises()
-    expect(status()).toHaveTextContent("Unsaved changes— Can't reach Gridcue")
+    expect(status()).toHaveTextContent("Not saved — can't reach Gridcue, kept in this browser; retrying…")
     expect(screen.queryByRole('dialog')).not.toBeInTheDocument()
     expect(localCopy()!.outline.lines[3].hidden).toBe(true)
     view.unmount()
