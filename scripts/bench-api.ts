@@ -53,13 +53,14 @@ try {
   results.push(await run('puzzle list', { url: `${base}/api/channels/${channelId}/puzzles`, headers: auth, connections: CONNECTIONS }))
   results.push(await saves(base, channelId, outlines.slice(1), auth))
   const pdfs = pdfLoop(base, `/api/channels/${channelId}/outlines/${outlines[0].id}/cue-sheet.pdf?thumbnails=1`, token)
+  results.push(await run('outline read, revalidated, while PDFs are made', { url: base + readPath, headers: { ...auth, 'if-none-match': etag }, connections: CONNECTIONS }, 304))
   results.push(await run('outline read in full while PDFs are made', { url: base + readPath, headers: auth, connections: CONNECTIONS }))
   const pdfStats = await pdfs.stop()
 
   console.log('| load | requests/s | p50 ms | p99 ms | unexpected status | errors |')
   console.log('| --- | ---: | ---: | ---: | ---: | ---: |')
   for (const r of results) console.log(`| ${r.name} | ${r.requestsPerSecond.toFixed(0)} | ${r.p50} | ${r.p99} | ${r.unexpected} | ${r.errors} |`)
-  console.log(`\ncue-sheet PDFs made during the last run: ${pdfStats.count}, median ${pdfStats.median.toFixed(0)} ms each, ${pdfStats.failures} failed`)
+  console.log(`\ncue-sheet PDFs made during the last two runs: ${pdfStats.count}, median ${pdfStats.median.toFixed(0)} ms each, ${pdfStats.failures} failed`)
 } finally {
   server.process.kill('SIGTERM')
 }
