@@ -1,11 +1,19 @@
 import { z } from 'zod'
+import { text } from './text'
 
 export const roleSchema = z.enum(['owner', 'presenter', 'editor', 'viewer'])
 export type Role = z.infer<typeof roleSchema>
 
+/** The longest e-mail address there is (RFC 5321's path limit, less its angle brackets). */
+const EMAIL_MAX = 254
+
 export const signInSchema = z.object({
-  email: z.email({ message: 'Enter a valid e-mail address' }).max(254),
-  password: z.string().min(1, { message: 'Enter your password' }).max(200),
+  // the length first, so a megabyte of text is refused before the address pattern reads it
+  email: z
+    .string({ message: 'Enter a valid e-mail address' })
+    .max(EMAIL_MAX, { message: `An e-mail address has at most ${EMAIL_MAX} characters`, abort: true })
+    .pipe(z.email({ message: 'Enter a valid e-mail address' })),
+  password: text({ label: 'password', max: 200, required: 'Enter your password' }),
 })
 export type SignInInput = z.infer<typeof signInSchema>
 

@@ -4,7 +4,9 @@
  * the steps inside an outline follow the step contract in ./step.
  */
 import { z } from 'zod'
+import { puzzleAuthorSchema, puzzleTitleSchema } from './puzzle'
 import { cellSchema, stepSchema } from './step'
+import { text, webAddress } from './text'
 
 /** Offered here too: whoever checks outlines finds the check of the steps they hold beside it. */
 export { stepSchema }
@@ -17,6 +19,16 @@ export const PACE_MIN = 60
 export const PACE_MAX = 400
 const pace = z.number().min(PACE_MIN).max(PACE_MAX)
 
+/** Longest text of one spoken line: about two minutes of speech, far more than a line ever needs. */
+export const LINE_TEXT_MAX = 2000
+const CHAPTER_TITLE_MAX = 100
+
+// A grid has 729 candidates and every step removes at least one, so no path is longer; a line covers at
+// least one step (intro and outro aside) and a chapter starts at a line. The bounds keep a 1 MB body of
+// tiny items from making the checks below walk an unbounded list.
+const STEPS_MAX = 1000
+const LINES_MAX = STEPS_MAX + 2
+
 const HOUR_MS = 3_600_000
 /** Longest target length or aligned time an outline takes. */
 export const DAY_MS = 24 * HOUR_MS
@@ -25,8 +37,8 @@ const outlineLineSchema = z.object({
   id: z.int().min(1),
   kind: z.enum(['intro', 'step', 'outro']),
   /** indices into `steps`, consecutive and ascending; empty for intro and outro */
-  steps: z.array(z.int().min(0)),
-  text: z.string().min(1),
+  steps: z.array(z.int().min(0)).max(STEPS_MAX),
+  text: text({ label: 'line text', max: LINE_TEXT_MAX, required: true }),
   /** true once a person changed the text: re-rendering (e.g. a new naming style) leaves it alone */
   edited: z.boolean(),
   hidden: z.boolean(),
@@ -42,7 +54,7 @@ export type OutlineLine = z.infer<typeof outlineLineSchema>
 const chapterSchema = z.object({
   /** the line the chapter starts at */
   lineId: z.int().min(1),
-  title: z.string().trim().min(1).max(100),
+  title: text({ label: 'chapter title', max: CHAPTER_TITLE_MAX, required: true, trim: true }),
   edited: z.boolean(),
 })
 export type Chapter = z.infer<typeof chapterSchema>
@@ -50,21 +62,22 @@ export type Chapter = z.infer<typeof chapterSchema>
 export const outlineSchema = z
   .object({
     version: z.literal(1),
-    title: z.string().min(1),
-    author: z.string().optional(),
-    link: z.union([z.url({ protocol: /^https?$/, message: 'link must be a web address (https://…)' }), z.literal('')]).optional(),
+    title: puzzleTitleSchema,
+    author: puzzleAuthorSchema.optional(),
+    link: webAddress('link').optional(),
     pace,
     names: namingStyleSchema,
     targetMs: z.int().min(1).max(DAY_MS, 'a target length must be under 24 hours').optional(),
     status: z.enum(['solved', 'stuck']),
     puzzle: z.object({
       givens: z.string().regex(/^[1-9.]{81}$/, 'givens must be 81 characters, 1-9 or "."'),
-      thermometers: z.array(z.array(cellSchema).min(2).max(9)),
+      thermometers: z.array(z.array(cellSchema).min(2).max(9)).max(81),
     }),
-    steps: z.array(stepSchema).min(1),
-    lines: z.array(outlineLineSchema).min(1),
-    chapters: z.array(chapterSchema).min(1),
+    steps: z.array(stepSchema).min(1).max(STEPS_MAX),
+    lines: z.array(outlineLineSchema).min(1).max(LINES_MAX),
+    chapters: z.array(chapterSchema).min(1).max(LINES_MAX),
   })
+  // only on an outline whose every field passed: the checks below read lines[0] and walk the lists
   .superRefine((o, ctx) => {
     const issue = (message: string) => ctx.addIssue({ code: 'custom', message })
     const ids = new Set<number>()
@@ -105,21 +118,24 @@ export const outlineSchema = z
       if (line.alignedStartMs < lastAligned) issue(`line ${line.id} is aligned before the line above it`)
       lastAligned = line.alignedStartMs
     }
-  })
+  }, { when: (payload) => payload.issues.length === 0 })
 export type Outline = z.infer<typeof outlineSchema>
 
 const lineId = z.int().min(1)
+// as typed: the edits themselves tidy white space and say what is wrong with an empty text or title
+const typedLineText = text({ label: 'line text', max: LINE_TEXT_MAX })
+const typedChapterTitle = text({ label: 'chapter title', max: CHAPTER_TITLE_MAX })
 
 /** One edit the studio can make; `applyEdit` in shared/script runs it. */
 export const outlineEditSchema = z.discriminatedUnion('op', [
-  z.object({ op: z.literal('editLineText'), lineId, text: z.string() }),
+  z.object({ op: z.literal('editLineText'), lineId, text: typedLineText }),
   z.object({ op: z.literal('revertLineText'), lineId }),
-  z.object({ op: z.literal('foldLines'), lineIds: z.array(lineId).min(2) }),
+  z.object({ op: z.literal('foldLines'), lineIds: z.array(lineId).min(2).max(LINES_MAX) }),
   z.object({ op: z.literal('splitLine'), lineId }),
   z.object({ op: z.literal('hideLine'), lineId }),
   z.object({ op: z.literal('showLine'), lineId }),
-  z.object({ op: z.literal('startChapterAt'), lineId, title: z.string().optional() }),
-  z.object({ op: z.literal('renameChapter'), lineId, title: z.string() }),
+  z.object({ op: z.literal('startChapterAt'), lineId, title: typedChapterTitle.optional() }),
+  z.object({ op: z.literal('renameChapter'), lineId, title: typedChapterTitle }),
   z.object({ op: z.literal('removeChapter'), lineId }),
   z.object({ op: z.literal('setPace'), pace: z.number() }),
   z.object({ op: z.literal('setNames'), names: namingStyleSchema }),

@@ -5,6 +5,12 @@
  * Fields may be added, but existing ones keep their meaning.
  */
 import { z } from 'zod'
+import { text } from './text'
+
+// Every list in a step names cells, digits, houses or candidates of one grid, so none is longer than the
+// grid has candidates (81 cells × 9 digits); the bound keeps a request from sending an endless one.
+const CANDIDATES = 81 * 9
+const listOf = <T extends z.ZodType>(item: T) => z.array(item).max(CANDIDATES)
 
 /** 0..80, row-major: row = floor(cell / 9), column = cell % 9. */
 export const cellSchema = z.int().min(0).max(80)
@@ -38,7 +44,7 @@ export type TechniqueId = z.infer<typeof techniqueIdSchema>
 
 const placementSchema = z.object({ cell: cellSchema, digit: digitSchema })
 
-const eliminationSchema = z.object({ cell: cellSchema, digits: z.array(digitSchema) })
+const eliminationSchema = z.object({ cell: cellSchema, digits: listOf(digitSchema) })
 export type Elimination = z.infer<typeof eliminationSchema>
 
 const thermometerIndex = z.int().min(0)
@@ -49,7 +55,7 @@ const chainLinkSchema = z.object({
   /** 'place' puts digit in cell; 'eliminate' removes digits from cell */
   kind: z.enum(['place', 'eliminate']),
   cell: cellSchema,
-  digits: z.array(digitSchema),
+  digits: listOf(digitSchema),
   /** house or thermometer that forced it, when there is one */
   house: houseRefSchema.optional(),
   thermometer: thermometerIndex.optional(),
@@ -71,16 +77,16 @@ const stepFactsSchema = z.discriminatedUnion('kind', [
      */
     seen: z.preprocess(
       renamedRuledOut,
-      z.object({ row: z.array(digitSchema), column: z.array(digitSchema), box: z.array(digitSchema), ruledOut: z.array(digitSchema) }),
+      z.object({ row: listOf(digitSchema), column: listOf(digitSchema), box: listOf(digitSchema), ruledOut: listOf(digitSchema) }),
     ),
   }),
-  z.object({ kind: z.literal('single-house'), cell: cellSchema, digit: digitSchema, house: houseRefSchema, blockedCells: z.array(cellSchema) }),
+  z.object({ kind: z.literal('single-house'), cell: cellSchema, digit: digitSchema, house: houseRefSchema, blockedCells: listOf(cellSchema) }),
   z.object({
     kind: z.literal('subset'),
     form: z.enum(['naked', 'hidden']),
     house: houseRefSchema,
-    cells: z.array(cellSchema),
-    digits: z.array(digitSchema),
+    cells: listOf(cellSchema),
+    digits: listOf(digitSchema),
   }),
   z.object({
     kind: z.literal('locked'),
@@ -88,14 +94,14 @@ const stepFactsSchema = z.discriminatedUnion('kind', [
     box: z.int().min(0).max(8),
     line: houseRefSchema,
     direction: z.enum(['box-to-line', 'line-to-box']),
-    cells: z.array(cellSchema),
+    cells: listOf(cellSchema),
   }),
   z.object({
     kind: z.literal('thermo-length'),
     thermometer: thermometerIndex,
     length: z.int().min(2).max(9),
     /** the range each cell is limited to, in path order */
-    ranges: z.array(rangeSchema),
+    ranges: listOf(rangeSchema),
   }),
   z.object({
     kind: z.literal('thermo-bounds'),
@@ -106,7 +112,7 @@ const stepFactsSchema = z.discriminatedUnion('kind', [
     fromCell: cellSchema,
     fromDigit: digitSchema,
     /** cells whose range changed, with the new range */
-    ranges: z.array(rangeSchema),
+    ranges: listOf(rangeSchema),
     /** true when sudoku eliminations (a digit already in a house) fed the bound */
     withSudoku: z.boolean(),
   }),
@@ -114,7 +120,7 @@ const stepFactsSchema = z.discriminatedUnion('kind', [
     kind: z.literal('contradiction'),
     cell: cellSchema,
     assumed: digitSchema,
-    chain: z.array(chainLinkSchema),
+    chain: listOf(chainLinkSchema),
     /** where it breaks: a cell with no candidates, or a digit with no place in a house */
     emptyCell: cellSchema.optional(),
     emptyHouse: z.object({ house: houseRefSchema, digit: digitSchema }).optional(),
@@ -127,20 +133,20 @@ export type FactsOf<K extends FactsKind> = Extract<StepFacts, { kind: K }>
 
 const stepObject = z.object({
   technique: techniqueIdSchema,
-  placements: z.array(placementSchema),
+  placements: listOf(placementSchema),
   /** eliminations of placed digits from their peers are implied by placements and not listed */
-  eliminations: z.array(eliminationSchema),
+  eliminations: listOf(eliminationSchema),
   /** the cells the step is about (highlighted on screen) */
-  focus: z.array(cellSchema),
+  focus: listOf(cellSchema),
   /** why: the houses, thermometers and cells that force the step */
-  reason: z.object({ houses: z.array(houseRefSchema), thermometers: z.array(thermometerIndex), cells: z.array(cellSchema) }),
+  reason: z.object({ houses: listOf(houseRefSchema), thermometers: listOf(thermometerIndex), cells: listOf(cellSchema) }),
   facts: stepFactsSchema,
   /** relative effort to explain; higher is harder */
   difficulty: z.number(),
   /** cells a presenter would have pencil-marked once this step is done (cumulative) */
-  marks: z.array(cellSchema),
+  marks: listOf(cellSchema),
   /** one-line plain description */
-  text: z.string(),
+  text: text({ label: 'step text', max: 2000 }),
 })
 export type Step = z.infer<typeof stepObject>
 

@@ -17,15 +17,15 @@
 import { z } from 'zod'
 import { puzzleFileShape } from './puzzle'
 import { namingStyleSchema, outlineSchema, PACE_MAX, PACE_MIN } from './outline'
+import { text, webAddress } from './text'
 
 /** What the puzzle form sends. Structure only: a draft may still be invalid or not yet unique. */
 export const puzzleDraftSchema = puzzleFileShape.extend({
   givens: z.string().regex(/^[1-9.0]{81}$/, "givens must be 81 characters, each 1-9 or '.'"),
   thermometers: z.array(z.array(z.string().regex(/^[rR][1-9][cC][1-9]$/, 'cells are named like r3c4')).max(81)).max(81).default([]),
-  // only http(s): a javascript: or data: address would run when a page puts it in an href
-  link: z.union([z.url({ protocol: /^https?$/, message: 'link must be a web address (https://…)' }), z.literal('')]).optional(),
+  link: webAddress('link').optional(),
   publishedOn: z.union([z.iso.date({ message: 'publication date must be YYYY-MM-DD' }), z.literal('')]).optional(),
-  notes: z.string().max(5000, 'notes are longer than 5000 characters').optional(),
+  notes: text({ label: 'notes', max: 5000 }).optional(),
 })
 export type PuzzleDraft = z.infer<typeof puzzleDraftSchema>
 
@@ -59,8 +59,11 @@ export const puzzleRecordSchema = puzzleSummarySchema.extend({
 })
 export type PuzzleRecord = z.infer<typeof puzzleRecordSchema>
 
+/** A take's name, e.g. "Take 2" or "short version". */
+const takeName = text({ label: 'name', max: 100, required: true, trim: true })
+
 export const outlineCreateSchema = z.object({
-  name: z.string().trim().min(1).max(100).optional(),
+  name: takeName.optional(),
   pace: z.number().min(PACE_MIN, `pace must be at least ${PACE_MIN} words a minute`).max(PACE_MAX, `pace must be at most ${PACE_MAX} words a minute`).optional(),
   names: namingStyleSchema.optional(),
 })
@@ -87,7 +90,7 @@ export type OutlineRecord = z.infer<typeof outlineRecordSchema>
 export const outlineSaveSchema = z.object({
   /** the version the client read; a different current version answers 409 */
   version: z.int().min(1),
-  name: z.string().trim().min(1).max(100).optional(),
+  name: takeName.optional(),
   outline: outlineSchema,
 })
 export type OutlineSave = z.infer<typeof outlineSaveSchema>
