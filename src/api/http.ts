@@ -22,6 +22,16 @@ export function isApiError(value: unknown): value is ApiError {
 /** The code of the server's 503 while its database is away: nothing was read or stored, and a retry may work. */
 export const DATABASE_UNAVAILABLE = 'database-unavailable'
 
+/**
+ * How long to wait before sending a request again after `failedBefore` failures that pass by themselves (the
+ * database away, no connection): doubling from `firstMs` up to `maxMs`, and somewhere between half and all of
+ * that, so the browsers that were waiting don't all come back in the same second.
+ */
+export function retryDelayMs(failedBefore: number, { firstMs = 2000, maxMs = 60_000 }: { firstMs?: number; maxMs?: number } = {}): number {
+  const ceiling = Math.min(maxMs, firstMs * 2 ** failedBefore)
+  return Math.round(ceiling / 2 + (Math.random() * ceiling) / 2)
+}
+
 /** Anything with a zod-like `parse`; every response body is checked against the shared contract. */
 export interface Parser<T> {
   parse(data: unknown): T

@@ -5,7 +5,7 @@ import { z } from 'zod'
 import { outlineSchema } from '@shared/schemas/outline'
 import type { Outline } from '@shared/schemas/outline'
 import type { OutlineRecord } from '@shared/schemas/studio'
-import { DATABASE_UNAVAILABLE, isApiError } from '@/api/http'
+import { DATABASE_UNAVAILABLE, isApiError, retryDelayMs } from '@/api/http'
 import { isStaleError } from '@/api/stale'
 import { useUnsavedChangesGuard } from '@/composables/useUnsavedChangesGuard'
 
@@ -26,9 +26,9 @@ export interface AutosaveOptions {
   onSaved?: (record: OutlineRecord) => void
   /** Quiet time after the last edit before saving. */
   delayMs?: number
-  /** Wait before the first new try after a failed save (network down, database away, server error); it doubles with each failure. */
+  /** Wait before the first new try after a failed save (network down, database away, server error; 2 s); it doubles with each failure. */
   retryMs?: number
-  /** The longest wait between tries. */
+  /** The longest wait between tries (a minute). */
   maxRetryMs?: number
 }
 
@@ -58,8 +58,7 @@ export function localCopyKey(outlineId: number): string {
  */
 export function useAutosave(options: AutosaveOptions) {
   const delayMs = options.delayMs ?? 1000
-  const retryMs = options.retryMs ?? 2000
-  const maxRetryMs = options.maxRetryMs ?? 60_000
+  const { retryMs, maxRetryMs } = options
 
   const status = ref<SaveStatus>('saved')
   /** The server version the next save is based on. */
@@ -192,16 +191,7 @@ export function useAutosave(options: AutosaveOptions) {
     retryReason.value = reason
     // the status line already says what an outage means; a server error's own words may tell more
     lastError.value = reason === 'server' ? message : null
-    if (!disposed) schedule(backoff(failures++))
-  }
-
-  /**
-   * The wait before the next try: doubling from retryMs up to maxRetryMs, and somewhere between half and all
-   * of that, so the browsers that were waiting for the database don't all come back in the same second.
-   */
-  function backoff(failedBefore: number): number {
-    const ceiling = Math.min(maxRetryMs, retryMs * 2 ** failedBefore)
-    return Math.round(ceiling / 2 + (Math.random() * ceiling) / 2)
+    if (!disposed) schedule(retryDelayMs(failures++, { firstMs: retryMs, maxMs: maxRetryMs }))
   }
 
   /** Saves this browser's outline over the server's newer version. */

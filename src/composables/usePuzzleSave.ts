@@ -1,7 +1,8 @@
 import { ref, shallowRef, toValue } from 'vue'
 import type { MaybeRefOrGetter } from 'vue'
+import { useTimeoutFn } from '@vueuse/core'
 import type { PuzzleDraft, PuzzleRecord } from '@shared/schemas/studio'
-import { isApiError } from '@/api/http'
+import { DATABASE_UNAVAILABLE, isApiError, retryDelayMs } from '@/api/http'
 import { isStaleError } from '@/api/stale'
 import type { PuzzleForm } from './usePuzzleForm'
 import { useSavePuzzle } from './usePuzzleQueries'
@@ -14,6 +15,11 @@ export interface PuzzleSaveOptions {
   onCreated: (record: PuzzleRecord) => unknown
 }
 
+interface SaveOptions {
+  /** save over this version (the newer one in a conflict) instead of the one the form was read at */
+  overVersion?: number
+}
+
 /** Two versions of one puzzle: what this person tried to save, and what someone else saved first. */
 export interface PuzzleConflict {
   mine: PuzzleDraft
@@ -22,7 +28,8 @@ export interface PuzzleConflict {
 
 /**
  * Saving the Puzzle screen's form, and the way out when someone else saved first: keep mine (save over their
- * version), take theirs (my edits set aside), or bring mine back.
+ * version), take theirs (my edits set aside), or bring mine back. While the database is away the form keeps
+ * the edits and the save is tried again by itself, as the server's message promises.
  */
 export function usePuzzleSave({ channelId, puzzleId, form, onCreated }: PuzzleSaveOptions) {
   const mutation = useSavePuzzle(channelId)
@@ -33,8 +40,12 @@ export function usePuzzleSave({ channelId, puzzleId, form, onCreated }: PuzzleSa
   const conflictOpen = ref(false)
   /** The user's own edits, kept after they chose the saved version, until they save again. */
   const setAside = shallowRef<PuzzleDraft | null>(null)
+  /** The save to try again once the database is back: its options, failures so far, and when. */
+  let pending = { options: {} as SaveOptions, failures: 0, inMs: 0 }
+  const retry = useTimeoutFn(() => void save(pending.options), () => pending.inMs, { immediate: false })
 
-  async function save(options: { overVersion?: number } = {}): Promise<PuzzleRecord | null> {
+  async function save(options: SaveOptions = {}): Promise<PuzzleRecord | null> {
+    retry.stop()
     problem.value = null
     notice.value = null
     const verdict = form.check.flush()
@@ -54,6 +65,7 @@ export function usePuzzleSave({ channelId, puzzleId, form, onCreated }: PuzzleSa
     try {
       const saved = await mutation.mutateAsync({ draft: sent, puzzleId: id, version: options.overVersion ?? form.baseVersion.value })
       form.markSaved(saved, sentSnapshot)
+      pending.failures = 0
       setAside.value = null
       notice.value = saved.check === 'unique' ? 'Saved.' : 'Saved as a draft: the puzzle needs exactly one solution before Gridcue can find its path.'
       if (id === 'new') await onCreated(saved)
@@ -65,6 +77,10 @@ export function usePuzzleSave({ channelId, puzzleId, form, onCreated }: PuzzleSa
         return null
       }
       problem.value = isApiError(error) ? error.message : 'The puzzle could not be saved.'
+      if (isApiError(error) && error.code === DATABASE_UNAVAILABLE) {
+        pending = { options, failures: pending.failures + 1, inMs: retryDelayMs(pending.failures) }
+        retry.start()
+      }
       return null
     }
   }

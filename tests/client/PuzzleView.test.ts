@@ -240,6 +240,38 @@ describe('PuzzleView', () => {
     expect(screen.getByText('All changes saved · version 4')).toBeVisible()
   })
 
+  it('should show the server\'s message when the database is unavailable, keep the edits and save them once it is back', async () => {
+    const notStored = "The database is unavailable; this change was not saved — it is kept in this browser and will be sent when it's back."
+    let away = true
+    const bodies = savesOfExistingPuzzle((body) =>
+      away
+        ? HttpResponse.json({ code: 'database-unavailable', message: notStored }, { status: 503 })
+        : HttpResponse.json({ ...recordFixture(), ...body, version: 4 }),
+    )
+    const { user, button } = await open('/channels/1/puzzles/42')
+    const title = screen.getByLabelText('Title')
+    await user.clear(title)
+    await user.type(title, 'Morning climb (revised)')
+    await user.click(button('Save'))
+    await settle()
+
+    expect(screen.getByText(notStored)).toBeVisible()
+    expect(title).toHaveValue('Morning climb (revised)')
+    expect(screen.getByText('Unsaved changes')).toBeVisible()
+
+    away = false
+    // the first new try comes within two seconds
+    await vi.advanceTimersByTimeAsync(2000)
+    await settle()
+    expect(bodies.map((b) => [b.title, b.version])).toEqual([
+      ['Morning climb (revised)', 3],
+      ['Morning climb (revised)', 3],
+    ])
+    expect(screen.queryByText(notStored)).toBeNull()
+    expect(screen.getByText('Saved.')).toBeVisible()
+    expect(screen.getByText('All changes saved · version 4')).toBeVisible()
+  })
+
   describe('when someone else saved first (409)', () => {
     const theirs = recordFixture({ title: 'Morning climb — final', version: 5, updatedAt: '2025-05-02T09:30:00.000Z' })
 
