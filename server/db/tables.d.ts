@@ -8,6 +8,8 @@ export interface UserRow {
   email: string
   name: string
   password_hash: string
+  /** carried in every token issued to the user; bumped to end all their sessions (sign-out) */
+  token_version: number
   created_at: Date
   updated_at: Date
 }

@@ -9,6 +9,11 @@ export function findUserById(db: Db, id: number): Promise<UserRow | undefined> {
   return db('users').where({ id }).first()
 }
 
+/** Moves a user's token version on, so every token issued before names an old version. */
+export async function bumpTokenVersion(db: Db, id: number): Promise<void> {
+  await db('users').where({ id }).increment('token_version', 1)
+}
+
 export async function insertUser(db: Db, user: Pick<UserRow, 'email' | 'name' | 'password_hash'>): Promise<UserRow> {
   const [row] = await db('users').insert(user).returning('*')
   return row as UserRow

@@ -1,24 +1,13 @@
-import { ipKeyGenerator, rateLimit } from 'express-rate-limit'
 import { signInSchema } from '../../shared/schemas/auth'
+import { signInGuards } from '../auth/sign-in-limits'
 import type { Config } from '../config'
 import type { Db } from '../db/knex'
-import { HttpError } from '../errors'
-import { describeMe, signIn } from '../services/auth'
+import { describeMe, endAllSessions, signIn } from '../services/auth'
 import type { EndpointTable } from './endpoint'
 
 export function authEndpoints(api: EndpointTable, db: Db, config: Config): void {
-  // per address and e-mail, so one guessed account can't lock out a whole office behind one address
-  const signInLimit = rateLimit({
-    windowMs: 15 * 60 * 1000,
-    limit: config.auth.signInAttemptsPer15Min,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    // runs before validation, so the e-mail may be any JSON value
-    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${typeof req.body?.email === 'string' ? req.body.email.toLowerCase() : ''}`,
-    handler: (_req, _res, next) =>
-      next(new HttpError(429, 'too-many-attempts', 'Too many sign-in attempts. Please wait 15 minutes and try again.')),
-  })
-
-  api.addPublic({ method: 'post', path: '/auth/sign-in', body: signInSchema, before: [signInLimit] }, ({ body }) => signIn(db, config.auth, body))
+  api.addPublic({ method: 'post', path: '/auth/sign-in', body: signInSchema, before: signInGuards(config.auth) }, ({ body }) => signIn(db, config.auth, body))
+  // ends the caller's sessions everywhere, so a copied token stops working too
+  api.add({ method: 'post', path: '/auth/sign-out', access: 'signed-in' }, ({ user }) => endAllSessions(db, user.id))
   api.add({ method: 'get', path: '/auth/me', access: 'signed-in' }, ({ user }) => describeMe(db, user))
 }

@@ -1,27 +1,43 @@
 /**
  * The role matrix, generated: every endpoint the app registers × every kind of caller, each answer
  * checked against the permission table (shared/permissions.ts). ENDPOINTS below pins each endpoint's
- * access and gives a minimal valid request; an endpoint without a row fails here.
+ * access and gives a minimal valid request; an endpoint without a row fails here. Beside the helper's
+ * callers it has one more: the owner of another channel, who must fare no better than a non-member,
+ * whether they name the demo channel or their own channel with the demo channel's puzzle or outline.
  */
+import request from 'supertest'
 import { describe, expect, it } from 'vitest'
 import type { Express } from 'express'
+import { issueToken } from '../../server/auth/tokens'
 import type { Access, EndpointInfo } from '../../server/routes/endpoint'
 import { DEMO_PASSWORD } from '../../seeds/01_demo_channel'
 import { rolesFor } from '../../shared/permissions'
 import type { OutlineRecord, PuzzleRecord } from '../../shared/schemas/studio'
 import { ACTORS, demoEmail, registeredEndpoints, useApiSuite, type Actor } from '../helpers/api'
+import { testConfig } from '../helpers/db'
 import { draftOf } from '../helpers/studio'
 
 let puzzle: PuzzleRecord
 let outline: OutlineRecord
+let otherOwner: { id: number; channelId: number }
 const api = useApiSuite({
   prepare: async (suite) => {
     puzzle = await suite.createPuzzle(draftOf('GT13'))
     const res = await suite.as('owner').post(`/api/channels/${suite.channelId}/puzzles/${puzzle.id}/outlines`, {})
     if (res.status !== 201) throw new Error(`making an outline failed: ${res.status} ${JSON.stringify(res.body)}`)
     outline = res.body
+    otherOwner = await ownerOfAnotherChannel(suite.db)
   },
 })
+
+/** An invented person who owns a channel of their own and is not in the demo channel. */
+async function ownerOfAnotherChannel(db: typeof api.db): Promise<typeof otherOwner> {
+  const { password_hash } = (await db('users').where({ email: demoEmail('owner') }).first())!
+  const [user] = await db('users').insert({ email: 'other-owner@gridcue.example', name: 'Iris Mbeki', password_hash }).returning('id')
+  const [channel] = await db('channels').insert({ name: 'Lantern Grids', slug: 'lantern-grids' }).returning('id')
+  await db('memberships').insert({ user_id: user!.id, channel_id: channel!.id, role: 'owner' })
+  return { id: user!.id, channelId: channel!.id }
+}
 
 interface Row {
   access: Access
@@ -31,7 +47,9 @@ interface Row {
 
 /** Each endpoint by `METHOD path`: who may call it, and what a valid request sends. */
 const ENDPOINTS: Record<string, Row> = {
+  'GET /api/health': { access: 'public' },
   'POST /api/auth/sign-in': { access: 'public', body: () => ({ email: demoEmail('owner'), password: DEMO_PASSWORD }) },
+  'POST /api/auth/sign-out': { access: 'signed-in' },
   'GET /api/auth/me': { access: 'signed-in' },
   'GET /api/channels': { access: 'signed-in' },
   'GET /api/channels/:channelId': { access: 'channel.read' },
@@ -52,6 +70,7 @@ const ENDPOINTS: Record<string, Row> = {
 
 const endpoints = await registeredEndpoints()
 const keyOf = (e: EndpointInfo) => `${e.method.toUpperCase()} ${e.path}`
+const paramNames = (path: string) => [...path.matchAll(/:(\w+)/g)].map(([, name]) => name ?? '')
 
 type Outcome = 'allowed' | 401 | 403 | 404
 
@@ -70,7 +89,9 @@ const refusal = (outcome: 401 | 403 | 404, actor: Actor) =>
     404: { code: 'not-found', message: 'Channel not found' },
   })[outcome]
 
-function call(endpoint: EndpointInfo, actor: Actor, ids: Record<string, string | number> = {}) {
+type Client = ReturnType<typeof api.as>
+
+function call(endpoint: EndpointInfo, caller: Actor | Client, ids: Record<string, string | number> = {}) {
   const row = ENDPOINTS[keyOf(endpoint)]
   if (!row) throw new Error(`${keyOf(endpoint)} has no row in ENDPOINTS: add its access and a valid request`)
   const known: Record<string, string | number> = { channelId: api.channelId, puzzleId: puzzle.id, outlineId: outline.id, ...ids }
@@ -78,8 +99,21 @@ function call(endpoint: EndpointInfo, actor: Actor, ids: Record<string, string |
     if (known[name] === undefined) throw new Error(`no test id for :${name}`)
     return String(known[name])
   })
-  return api.as(actor)[endpoint.method](path, row.body?.())
+  const client = typeof caller === 'string' ? api.as(caller) : caller
+  return client[endpoint.method](path, row.body?.())
 }
+
+/** Requests as the owner of the other channel, with a token signed for them as the helper signs its callers'. */
+function asOtherChannelOwner(): Client {
+  const authorization = `Bearer ${issueToken(otherOwner.id, testConfig().auth).token}`
+  const send = (method: EndpointInfo['method']) => (path: string, body?: object) => {
+    const req = request(api.app)[method](path).set('Authorization', authorization)
+    return body === undefined ? req : req.send(body)
+  }
+  return { get: send('get'), post: send('post'), put: send('put'), patch: send('patch'), delete: send('delete') }
+}
+
+const isResourceId = (name: string) => name !== 'channelId'
 
 for (const endpoint of endpoints) {
   describe(`${keyOf(endpoint)} (${endpoint.access})`, () => {
@@ -89,6 +123,19 @@ for (const endpoint of endpoints) {
         const res = await call(endpoint, actor)
         if (outcome === 'allowed') expect(res.status, JSON.stringify(res.body)).toSatisfy((s: number) => s >= 200 && s < 300)
         else expect({ status: res.status, body: res.body }).toEqual({ status: outcome, body: refusal(outcome, actor) })
+      })
+    }
+    const outsider = outcomeFor(endpoint.access, 'non-member')
+    it(`as the owner of another channel → ${outsider === 'allowed' ? '2xx' : outsider}, like a non-member`, async () => {
+      const res = await call(endpoint, asOtherChannelOwner())
+      if (outsider === 'allowed') expect(res.status, JSON.stringify(res.body)).toSatisfy((s: number) => s >= 200 && s < 300)
+      else expect({ status: res.status, body: res.body }).toEqual({ status: outsider, body: refusal(outsider, 'non-member') })
+    })
+    if (endpoint.path.includes(':channelId') && paramNames(endpoint.path).some(isResourceId)) {
+      it("as the owner of another channel, naming the demo channel's puzzle or outline under their own channel → 404", async () => {
+        const res = await call(endpoint, asOtherChannelOwner(), { channelId: otherOwner.channelId })
+        expect(res.status, JSON.stringify(res.body)).toBe(404)
+        expect(res.body.code).toBe('not-found')
       })
     }
     if (endpoint.path.includes(':channelId')) {
