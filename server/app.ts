@@ -1,6 +1,9 @@
+// first: zod's settings apply to schemas as they are built, and the imports below build them
+import '../shared/schemas/zod-config'
 import { existsSync } from 'node:fs'
+import { join, resolve, sep } from 'node:path'
 import { fileURLToPath } from 'node:url'
-import express, { type Express } from 'express'
+import express, { type Express, type Response } from 'express'
 import helmet from 'helmet'
 import { pinoHttp } from 'pino-http'
 import { createPassport } from './auth/passport'
@@ -36,8 +39,7 @@ export function createApp({ db, config, logger, engine, clientDir = DEFAULT_CLIE
   const passport = createPassport(db, config.auth.jwtSecret)
 
   app.disable('x-powered-by')
-  // served over plain http on loopback, so no upgrade of sub-requests to https
-  app.use(helmet({ contentSecurityPolicy: { directives: { upgradeInsecureRequests: null } } }))
+  app.use(securityHeaders(config.http.behindTls))
   app.use(
     pinoHttp({
       logger,
@@ -61,10 +63,40 @@ export function createApp({ db, config, logger, engine, clientDir = DEFAULT_CLIE
   app.use('/api', unknownRoute)
 
   if (existsSync(clientDir)) {
-    app.use(express.static(clientDir, { index: false, maxAge: '1h' }))
-    app.get('/{*splat}', (_req, res) => res.sendFile('index.html', { root: clientDir }))
+    app.use(express.static(clientDir, { index: false, setHeaders: cacheRule(clientDir) }))
+    app.get('/{*splat}', (_req, res) => res.sendFile('index.html', { root: clientDir, headers: { 'Cache-Control': REVALIDATE } }))
   }
   app.use(unknownRoute)
   app.use(errorHandler)
   return app
+}
+
+/**
+ * helmet's headers with a policy of our own: scripts, styles and fonts only from this origin. HSTS and
+ * the upgrade of sub-requests to https only behind TLS (BEHIND_TLS): on plain http, as on loopback, the
+ * upgrade would send every sub-request to an https port nobody serves.
+ */
+function securityHeaders(behindTls: boolean) {
+  return helmet({
+    contentSecurityPolicy: {
+      directives: {
+        fontSrc: ["'self'"],
+        // PrimeVue's theme writes its CSS into <style> elements at run time; without 'unsafe-inline' the
+        // page has no styles. Still no other origin, and scripts stay 'self' only.
+        styleSrc: ["'self'", "'unsafe-inline'"],
+        upgradeInsecureRequests: behindTls ? [] : null,
+      },
+    },
+    strictTransportSecurity: behindTls,
+  })
+}
+
+// the shell and anything else unhashed: always asked again (an ETag makes that cheap), so a new build shows at once
+const REVALIDATE = 'no-cache'
+// Vite's build names every file under assets/ by a hash of its content: a changed file gets a new name
+const FOREVER = 'public, max-age=31536000, immutable'
+
+function cacheRule(clientDir: string) {
+  const assets = join(resolve(clientDir), 'assets') + sep
+  return (res: Response, path: string) => res.setHeader('Cache-Control', path.startsWith(assets) ? FOREVER : REVALIDATE)
 }

@@ -1,3 +1,5 @@
+// first: zod's settings apply to schemas as they are built, and the imports below build them
+import '@shared/schemas/zod-config'
 import { createApp } from 'vue'
 import { createPinia } from 'pinia'
 import { createWebHistory } from 'vue-router'
