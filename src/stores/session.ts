@@ -3,7 +3,7 @@ import { computed, ref } from 'vue'
 import { useEventListener } from '@vueuse/core'
 import { signInResponseSchema } from '@shared/schemas/auth'
 import type { Membership, Role, SignInInput, SignInResponse, User } from '@shared/schemas/auth'
-import { getMe, signIn as postSignIn } from '@/api/auth'
+import { getMe, signIn as postSignIn, signOut as postSignOut } from '@/api/auth'
 import { setHttpAuth } from '@/api/http'
 import { roleCan, type Action } from '@shared/permissions'
 
@@ -54,8 +54,15 @@ export const useSessionStore = defineStore('session', () => {
     start(await postSignIn(input))
   }
 
-  function signOut(): void {
+  /**
+   * Signs out here at once, and on the server so that copies of the token die too. The server's part is
+   * best effort: offline, or with a token it has already refused, the session still ends here.
+   */
+  async function signOut(): Promise<void> {
+    // the request reads the token as it starts, before the session below forgets it
+    const serverSignOut = token.value === null ? Promise.resolve() : postSignOut()
     end('signed-out')
+    await serverSignOut.catch(() => {})
   }
 
   function expire(): void {

@@ -113,11 +113,39 @@ describe('session store', () => {
     expect(localStorage.getItem(SESSION_STORAGE_KEY)).toBeNull()
   })
 
-  it('should sign out on request and forget the token', () => {
-    saveSession()
+  it('should sign out on the server with the token, and forget the token here at once', async () => {
+    const saved = saveSession()
+    const sent: (string | null)[] = []
+    let answer: () => void = () => {}
+    api.use(
+      http.post(apiPath('/auth/sign-out'), async ({ request }) => {
+        sent.push(request.headers.get('Authorization'))
+        await new Promise<void>((resolve) => (answer = resolve))
+        return new HttpResponse(null, { status: 204 })
+      }),
+    )
     const session = useSessionStore()
 
-    session.signOut()
+    const signingOut = session.signOut()
+
+    expect(session.isSignedIn).toBe(false)
+    expect(session.endReason).toBe('signed-out')
+    expect(localStorage.getItem(SESSION_STORAGE_KEY)).toBeNull()
+    await vi.waitFor(() => expect(sent).toEqual([`Bearer ${saved.token}`]))
+    answer()
+    await signingOut
+  })
+
+  it.each([
+    ['the server fails', () => HttpResponse.json({ code: 'internal', message: 'Something went wrong' }, { status: 500 })],
+    ['the token was already refused', () => HttpResponse.json({ code: 'unauthenticated', message: 'Please sign in first.' }, { status: 401 })],
+    ['the network is down', () => HttpResponse.error()],
+  ])('should still sign out here when %s', async (_case, reply) => {
+    saveSession()
+    api.use(http.post(apiPath('/auth/sign-out'), reply))
+    const session = useSessionStore()
+
+    await session.signOut()
 
     expect(session.isSignedIn).toBe(false)
     expect(session.endReason).toBe('signed-out')
