@@ -2,7 +2,7 @@
  * A PostgreSQL cluster of one test file's own, for tests that stop and start the database: stopping the
  * shared test cluster would break every other suite. It lives in a temporary folder under /var/tmp (the
  * `postgres` user can enter it, unlike a checkout under /root) on a free loopback port, with durability
- * off, and holds one database migrated and seeded with the demo data. Set-up takes about 3 s, most of it initdb.
+ * off, and holds one database migrated and seeded with the demo data. Set-up takes 1–2 s, most of it initdb.
  */
 import { execFile } from 'node:child_process'
 import { existsSync } from 'node:fs'
