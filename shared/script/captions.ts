@@ -24,9 +24,12 @@ export function captionCues(outline: Outline): CaptionCue[] {
   for (const line of outline.lines) {
     const t = times.get(line.id)
     if (!t || t.hidden || t.durationMs <= 0) continue
-    let chunks = chunkText(line.text)
+    // rows are ours to break: a line break of the text's own would end the cue early in WebVTT and SRT
+    // (a blank line ends a cue), and what followed it would be read as a block of the file
+    const spoken = line.text.replace(/\s+/g, ' ').trim()
+    let chunks = chunkText(spoken)
     // Every cue needs a positive length; a line squeezed by alignment gets one cue.
-    if (t.durationMs < chunks.length * 200) chunks = [line.text]
+    if (t.durationMs < chunks.length * 200) chunks = [spoken]
     const weights = chunks.map((c) => Math.max(1, wordCount(c)))
     const sum = weights.reduce((a, b) => a + b, 0)
     let acc = 0

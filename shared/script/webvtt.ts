@@ -23,7 +23,10 @@ export function toWebVttCaptions(outline: Outline): string {
   return `WEBVTT\n\n${cues.join('\n\n')}\n`
 }
 
-/** Cue text is markup: &, < and > must be escaped (which also keeps "-->" out of it). */
+/**
+ * Cue text is markup: &, < and > must be escaped (which also keeps "-->" out of it). And a line break
+ * is a row break, a blank line the end of the cue: a title's own line breaks become spaces.
+ */
 function escapeCueText(s: string): string {
-  return s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;')
+  return s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/[\r\n]+/g, ' ')
 }
