@@ -26,6 +26,8 @@ export function createExportPool({ threads, timeoutMs, idleTimeoutMs, logger }: 
     threads,
     timeoutMs,
     idleTimeoutMs,
+    // a person waits for a cue sheet less keenly than for the studio's reads and saves
+    niceIncrement: 10,
     logger,
     tooSlow: () => new HttpError(503, 'export-timeout', 'The cue sheet took too long to make; please try again'),
     busy: () => new HttpError(503, 'export-busy', 'Cue sheets are being made for others right now; please try again in a moment'),

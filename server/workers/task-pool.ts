@@ -26,6 +26,8 @@ export interface TaskPoolOptions {
   timeoutMs: number
   /** a thread beyond the first ends after this long without work */
   idleTimeoutMs?: number
+  /** added to the threads' nice value (Linux), so their work yields the cores to requests */
+  niceIncrement?: number
   logger: AppLogger
   /** the answer when a task hit the time limit */
   tooSlow: () => HttpError
@@ -45,7 +47,7 @@ const TSX_PRELOAD = new URL('./register-tsx.mjs', import.meta.url)
  * ended at the time limit is replaced in the background.
  */
 export function createTaskPool<J extends Tasks<J>>(options: TaskPoolOptions): TaskPool<J> {
-  const { job, label, threads, timeoutMs, idleTimeoutMs = 60_000, logger, tooSlow, busy } = options
+  const { job, label, threads, timeoutMs, idleTimeoutMs = 60_000, niceIncrement = 0, logger, tooSlow, busy } = options
   // beyond this many waiting tasks a caller is told to retry rather than wait behind everyone
   const maxQueue = Math.max(8, threads * threads)
   let pool: Piscina | undefined
@@ -56,6 +58,7 @@ export function createTaskPool<J extends Tasks<J>>(options: TaskPoolOptions): Ta
       minThreads: 1,
       maxThreads: threads,
       idleTimeout: idleTimeoutMs,
+      niceIncrement,
       // a TypeScript thread file needs tsx's loader in its thread; compiled JavaScript inherits the defaults
       execArgv: THREAD_FILE.pathname.endsWith('.ts') ? ['--import', TSX_PRELOAD.href] : undefined,
     })
