@@ -123,6 +123,38 @@ describe.each(writeRoutes.map((e) => ({ route: keyOf(e), endpoint: e })))('$rout
   }, 60_000)
 })
 
+describe('the inputs the attack run found', () => {
+  const patchOutline = async (change: (o: Outline) => Outline) => {
+    const { version, outline } = await read('outlines', ids.outlineId)
+    return request(app).patch(path(`outlines/${ids.outlineId}`)).set('Authorization', await ownerBearer()).send({ version, outline: change(outline as Outline) })
+  }
+  const withLine = (text: string) => (o: Outline) => ({ ...o, lines: o.lines.map((l, i) => (i === 1 ? { ...l, text } : l)) })
+
+  it.each([
+    ['no lines', (o: Outline) => ({ ...o, lines: [] }), 'body.outline.lines: Too small: expected array to have >=1 items'],
+    ['a lone surrogate in a line', withLine('bulb \ud83c first'), "body.outline.lines.1.text: line text can't contain half of a UTF-16 surrogate pair (a broken character)"],
+    ['a NUL in a line', withLine('bulb\u0000first'), "body.outline.lines.1.text: line text can't contain a NUL character"],
+    ['a line of one 20,000-character word', withLine('w'.repeat(20_000)), 'body.outline.lines.1.text: line text can be at most 2000 characters'],
+  ])('PATCH of an outline with %s → 400 naming the field (was 500, or a 24 s cue sheet)', async (_case, change, message) => {
+    const res = await patchOutline(change)
+    expect({ status: res.status, message: res.body.message }).toEqual({ status: 400, message })
+  })
+
+  it.each([
+    ['title', { title: 'Four Fevers\u0000' }, "body.title: title can't contain a NUL character"],
+    ['notes', { notes: 'a\u0000b' }, "body.notes: notes can't contain a NUL character"],
+    ['author', { author: 'Pat \udc00' }, "body.author: author can't contain half of a UTF-16 surrogate pair (a broken character)"],
+    ['link', { link: 'https://example.com/\u0000' }, "body.link: link can't contain a NUL character"],
+  ])('PUT of a puzzle with a NUL or lone surrogate in its %s → 400 naming the field (was 500)', async (_field, change, message) => {
+    const { version } = await read('puzzles', ids.puzzleId)
+    const res = await request(app)
+      .put(path(`puzzles/${ids.puzzleId}`))
+      .set('Authorization', await ownerBearer())
+      .send({ ...draftOf('PE01'), version, ...change })
+    expect({ status: res.status, message: res.body.message }).toEqual({ status: 400, message })
+  })
+})
+
 describe('text that looks like markup', () => {
   it('should be stored byte for byte and exported to WebVTT as text, not as tags', async () => {
     const { version, outline } = await read('outlines', ids.outlineId)
