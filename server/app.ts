@@ -39,6 +39,9 @@ export function createApp({ db, config, logger, engine, clientDir = DEFAULT_CLIE
   const passport = createPassport(db, config.auth.jwtSecret)
 
   app.disable('x-powered-by')
+  // the proxy in front is then every request's peer: the sign-in limits must count the caller's address
+  // it passes on, or one guesser would lock everyone out; without a proxy that header is anyone's to forge
+  if (config.http.behindTls) app.set('trust proxy', 1)
   app.use(securityHeaders(config.http.behindTls))
   app.use(
     pinoHttp({

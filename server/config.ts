@@ -19,7 +19,8 @@ const envSchema = z.object({
   JWT_EXPIRES_IN_SECONDS: z.coerce.number().int().min(60).max(30 * 24 * 3600).default(12 * 3600),
   SIGN_IN_ATTEMPTS_PER_15_MIN: z.coerce.number().int().min(1).default(10),
   SIGN_IN_ATTEMPTS_PER_ADDRESS_PER_15_MIN: z.coerce.number().int().min(1).default(30),
-  // set when a TLS-terminating proxy sits in front: only then may browsers be told to insist on https
+  // set when one TLS-terminating proxy sits in front: only then may browsers be told to insist on https,
+  // and only then is the caller's address the one the proxy passes on (X-Forwarded-For)
   BEHIND_TLS: z.stringbool().default(false),
   ENGINE_THREADS: z.coerce.number().int().min(1).max(64).default(DEFAULT_ENGINE_THREADS),
   ENGINE_TIMEOUT_MS: z.coerce.number().int().min(1000).default(30_000),

@@ -118,6 +118,19 @@ describe('POST /api/auth/sign-in, password spraying', () => {
     expect((await attempt('one-more@gridcue.example', 'guess')).status).toBe(429)
   })
 
+  it('should count the address the proxy passes on behind TLS, and ignore that header otherwise', async () => {
+    const failFrom = (app: ReturnType<typeof appWith>, address: string, i: number) =>
+      request(app).post('/api/auth/sign-in').set('X-Forwarded-For', address).send({ email: `person-${i}@gridcue.example`, password: 'guess' })
+    const behindTls = appWith((c) => ({ ...c, http: { ...c.http, behindTls: true }, auth: { ...c.auth, signInAttemptsPerAddressPer15Min: perAddress } }))
+    for (let i = 0; i < perAddress; i++) expect((await failFrom(behindTls, '198.51.100.7', i)).status).toBe(401)
+    expect((await failFrom(behindTls, '198.51.100.7', 99)).status).toBe(429)
+    expect((await failFrom(behindTls, '203.0.113.20', 99)).status).toBe(401)
+
+    const direct = sprayable()
+    for (let i = 0; i < perAddress; i++) expect((await failFrom(direct, `198.51.100.${i}`, i)).status).toBe(401)
+    expect((await failFrom(direct, '203.0.113.20', 99)).status).toBe(429)
+  })
+
   it('should answer 400 for a huge e-mail before any limit counts it', async () => {
     const app = sprayable()
     for (let i = 0; i < perAddress + 2; i++) {
