@@ -32,14 +32,15 @@ export const stale = <T>(what: string, current: T) =>
 const READ_METHODS = new Set(['GET', 'HEAD', 'OPTIONS'])
 
 /** The database did not answer: nothing was read or stored, and the same request may work in a moment. */
-export const databaseUnavailable = (method: string) =>
-  new HttpError(
-    503,
-    'database-unavailable',
-    READ_METHODS.has(method)
-      ? 'The database is unavailable, so this could not be loaded. Try again in a moment.'
-      : "The database is unavailable; this change was not saved — it is kept in this browser and will be sent when it's back.",
-  )
+export const databaseUnavailable = (request: { method: string; path: string }) =>
+  new HttpError(503, 'database-unavailable', unavailableMessage(request))
+
+// Said to a person: a read, a sign-in and a change each lose something different when the database is away.
+function unavailableMessage({ method, path }: { method: string; path: string }): string {
+  if (READ_METHODS.has(method)) return 'The database is unavailable, so this could not be loaded. Try again in a moment.'
+  if (path.startsWith('/api/auth/')) return "The database is unavailable, so signing in can't be checked right now. Try again in a moment."
+  return "The database is unavailable; this change was not saved — it is kept in this browser and will be sent when it's back."
+}
 
 /** An unexpected failure: nothing is known about what was stored, so a change is not claimed safe. */
 export const internalError = (method: string) =>

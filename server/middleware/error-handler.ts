@@ -16,7 +16,7 @@ export const errorHandler: ErrorRequestHandler = (error, req, res, _next) => {
   let reply = toHttpError(error)
   if (!reply && isConnectionFailure(error)) {
     req.log?.warn({ err: error }, 'database unavailable')
-    reply = databaseUnavailable(req.method)
+    reply = databaseUnavailable({ method: req.method, path: req.originalUrl })
   }
   if (!reply) {
     req.log?.error({ err: error }, 'unhandled error')

@@ -2,14 +2,13 @@
  * Edit operations on an outline. Each returns a new outline and leaves its input untouched,
  * so the studio can keep old versions for undo. None of them touches the engine steps.
  */
-import { DAY_MS, outlineEditSchema, type NamingStyle, type Outline, type OutlineEdit, type OutlineLine } from '../schemas/outline'
+import { DAY_MS, LINE_TEXT_MAX, outlineEditSchema, type NamingStyle, type Outline, type OutlineEdit, type OutlineLine } from '../schemas/outline'
 import { checkTarget } from './build'
 import { choosePhrasing, familyOf, renderLine } from './narrate'
 import { stepBox } from './segments'
 import { checkPace, estimateMs, lineActions } from './timing'
 import { boxWords, capitalise } from './words'
 
-const MAX_TEXT = 2000
 const MAX_TITLE = 100
 
 /** Replaces a line's words; the line is then marked edited and keeps them through re-renders. */
@@ -17,7 +16,7 @@ export function editLineText(outline: Outline, lineId: number, text: string): Ou
   const line = lineOf(outline, lineId)
   const clean = typeof text === 'string' ? text.replace(/\s+/g, ' ').trim() : ''
   if (clean.length === 0) throw new Error(`line ${lineId} can't be empty; hide it instead`)
-  if (clean.length > MAX_TEXT) throw new Error(`line ${lineId} is too long (${clean.length} characters, at most ${MAX_TEXT})`)
+  checkLength(lineId, clean)
   return replaceLines(outline, [withText(outline, { ...line, text: clean, edited: true })])
 }
 
@@ -55,8 +54,14 @@ export function foldLines(outline: Outline, lineIds: number[]): Outline {
     text: edited ? group.map((l) => l.text).join(' ') : renderLine(outline, shape, phrasing),
     hidden: group.every((l) => l.hidden),
   })
+  checkLength(first.id, merged.text)
   const lines = [...outline.lines.slice(0, indices[0]), merged, ...outline.lines.slice(indices[indices.length - 1] + 1)]
   return { ...outline, lines }
+}
+
+// The same limit the outline schema keeps, said here so an edit is refused before it is saved.
+function checkLength(lineId: number, text: string): void {
+  if (text.length > LINE_TEXT_MAX) throw new Error(`line ${lineId} would be too long (${text.length} characters, at most ${LINE_TEXT_MAX})`)
 }
 
 /** Splits a folded line back into one line per step; the first keeps the id (and any chapter). */

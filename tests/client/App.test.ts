@@ -1,5 +1,5 @@
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest'
-import { screen, within } from '@testing-library/vue'
+import { screen, waitFor, within } from '@testing-library/vue'
 import userEvent from '@testing-library/user-event'
 import type { Membership } from '@shared/schemas/auth'
 import App from '@/App.vue'
@@ -92,7 +92,14 @@ describe('App shell', () => {
 
   it('should sign out from the header, clear cached data and return to sign-in', async () => {
     saveSession()
-    api.use(http.get(apiPath('/channels'), () => HttpResponse.json([channel])))
+    let endedOnServer = false
+    api.use(
+      http.get(apiPath('/channels'), () => HttpResponse.json([channel])),
+      http.post(apiPath('/auth/sign-out'), () => {
+        endedOnServer = true
+        return new HttpResponse(null, { status: 204 })
+      }),
+    )
     const { router, queryClient } = await renderAt(App, '/')
     await screen.findByRole('link', { name: 'Thermo Thursdays' })
 
@@ -105,6 +112,8 @@ describe('App shell', () => {
     expect(screen.queryByText('Your session has ended', { exact: false })).not.toBeInTheDocument()
     expect(localStorage.getItem(SESSION_STORAGE_KEY)).toBeNull()
     expect(queryClient.getQueryCache().getAll()).toHaveLength(0)
+    // the token dies on the server too, so a copy of it can't be used
+    await waitFor(() => expect(endedOnServer).toBe(true))
   })
 
   it('should clear the session and go to sign-in, coming back afterwards, when an API call answers 401', async () => {

@@ -104,6 +104,8 @@ describe('the database stopped and started under a running app', () => {
     expect(answers.outlineSave.res.body.message).toBe(SAVE_NOT_STORED)
     expect(answers.puzzleSave.res.body.message).toBe(SAVE_NOT_STORED)
     expect(answers.read.res.body.message).toBe('The database is unavailable, so this could not be loaded. Try again in a moment.')
+    // signing in changes nothing a browser keeps: it must not promise to send anything later
+    expect(answers.signIn.res.body.message).toBe("The database is unavailable, so signing in can't be checked right now. Try again in a moment.")
     expect(answers.health.res.body).toMatchObject({ status: 'degraded', database: 'down' })
   })
 
