@@ -27,6 +27,27 @@ export function findOutline(db: Db, channelId: number, outlineId: number): Promi
     .first('outlines.*')
 }
 
+/** When an outline was last saved, for its ETag; one indexed look-up that also checks the channel. */
+export function findOutlineStamp(db: Db, channelId: number, outlineId: number): Promise<Pick<OutlineRow, 'version' | 'updated_at'> | undefined> {
+  return db('outlines')
+    .join('puzzles', 'puzzles.id', 'outlines.puzzle_id')
+    .where('outlines.id', outlineId)
+    .andWhere('puzzles.channel_id', channelId)
+    .first('outlines.version', 'outlines.updated_at')
+}
+
+/** An outline whose document is the JSON text PostgreSQL prints, not parsed, for whoever only passes it on. */
+export type OutlineTextRow = OutlineSummaryRow & { document: string }
+
+/** An outline with its document as JSON text, only when its puzzle belongs to the channel. */
+export function findOutlineText(db: Db, channelId: number, outlineId: number): Promise<OutlineTextRow | undefined> {
+  return db('outlines')
+    .join('puzzles', 'puzzles.id', 'outlines.puzzle_id')
+    .where('outlines.id', outlineId)
+    .andWhere('puzzles.channel_id', channelId)
+    .first<OutlineTextRow | undefined>(...SUMMARY_COLUMNS.map((c) => `outlines.${c}`), db.raw('outlines.document::text as document'))
+}
+
 /** What a cue sheet needs: the take's name, the puzzle's title and the document as JSON text, left unparsed. */
 export interface OutlineExportRow {
   name: string

@@ -29,6 +29,18 @@ export class Download {
   ) {}
 }
 
+/**
+ * A JSON reply the caller may hold already. `tag` names the resource's current state (sent as its ETag,
+ * with `Cache-Control: private, no-cache` so browsers ask again each time): a request whose If-None-Match
+ * holds it is answered 304 and `json` is never called; otherwise `json` gives the body as JSON text.
+ */
+export class Revalidated {
+  constructor(
+    readonly tag: string,
+    readonly json: () => Promise<string>,
+  ) {}
+}
+
 type Schema = ZodType | undefined
 type Parsed<S extends Schema> = S extends ZodType ? z.output<S> : undefined
 
@@ -73,7 +85,7 @@ interface SignedInInput<P extends string, Q extends Schema, B extends Schema> ex
 type LooseSpec = Spec<string, Schema, Schema>
 type LooseInput = PublicInput<string, Schema, Schema>
 
-/** What a handler returns: a JSON body, a Download, or nothing (204). */
+/** What a handler returns: a JSON body, a Download, a Revalidated reply, or nothing (204). */
 type Handler<I> = (input: I) => Promise<unknown>
 
 const registries = new WeakMap<Express, readonly EndpointInfo[]>()
@@ -97,7 +109,7 @@ export function endpointTable(app: Express, prefix: string, { db, passport }: { 
 
   function register(spec: LooseSpec, access: Access, handle: (req: Request, res: Response) => Promise<unknown>): void {
     const path = prefix + spec.path
-    app.route(path)[spec.method](...(spec.before ?? []), async (req, res) => reply(res, await handle(req, res), spec.status))
+    app.route(path)[spec.method](...(spec.before ?? []), async (req, res) => reply(req, res, await handle(req, res), spec.status))
     endpoints.push({ method: spec.method, path, access })
   }
 
@@ -138,8 +150,13 @@ function inputParser({ path, query, body }: LooseSpec): (req: Request) => LooseI
   })
 }
 
-function reply(res: Response, result: unknown, status = 200): void {
-  if (result instanceof Download) res.type(result.mimeType).attachment(result.filename).send(result.content)
+async function reply(req: Request, res: Response, result: unknown, status = 200): Promise<void> {
+  if (result instanceof Revalidated) {
+    res.set({ ETag: result.tag, 'Cache-Control': 'private, no-cache' })
+    // req.fresh compares If-None-Match with the ETag just set
+    if (req.fresh) res.status(304).end()
+    else res.status(status).type('json').send(await result.json())
+  } else if (result instanceof Download) res.type(result.mimeType).attachment(result.filename).send(result.content)
   else if (result === undefined) res.status(204).end()
   else res.status(status).json(result)
 }

@@ -1,10 +1,10 @@
 import { cueSheetQuerySchema, outlineCreateSchema, outlineSaveSchema } from '../../shared/schemas/studio'
 import type { Db } from '../db/knex'
 import { cueSheetOf } from '../services/cue-sheets'
-import { duplicateOutline, makeOutline, outlineOf, outlinesOf, removeOutline, saveOutline } from '../services/outlines'
+import { duplicateOutline, makeOutline, outlineJsonOf, outlinesOf, outlineTagOf, removeOutline, saveOutline } from '../services/outlines'
 import type { Engine } from '../workers/engine-pool'
 import type { Exports } from '../workers/export-pool'
-import { Download, type EndpointTable } from './endpoint'
+import { Download, Revalidated, type EndpointTable } from './endpoint'
 
 const takes = '/channels/:channelId/puzzles/:puzzleId/outlines'
 const outline = '/channels/:channelId/outlines/:outlineId'
@@ -15,7 +15,11 @@ export function outlineEndpoints(api: EndpointTable, db: Db, engine: Engine & Ex
   api.add({ method: 'post', path: takes, access: 'outline.create', body: outlineCreateSchema, status: 201 }, ({ params, body, user }) =>
     makeOutline(db, engine, params.channelId, params.puzzleId, body, user),
   )
-  api.add({ method: 'get', path: outline, access: 'outline.read' }, ({ params }) => outlineOf(db, params.channelId, params.outlineId))
+  // a browser revalidating an unchanged outline gets a 304 from one small query, the document never loaded
+  api.add({ method: 'get', path: outline, access: 'outline.read' }, async ({ params }) => {
+    const tag = await outlineTagOf(db, params.channelId, params.outlineId)
+    return new Revalidated(tag, () => outlineJsonOf(db, params.channelId, params.outlineId))
+  })
   // editors edit the lines of a take; making and removing takes is for owners and presenters
   api.add({ method: 'patch', path: outline, access: 'outline.edit', body: outlineSaveSchema }, ({ params, body }) =>
     saveOutline(db, params.channelId, params.outlineId, body),

@@ -4,7 +4,7 @@ import { stepSchema, type Outline } from '../../shared/schemas/outline'
 import type { OutlineCreate, OutlineRecord, OutlineSave, OutlineSummary, PuzzleCheck } from '../../shared/schemas/studio'
 import { timeline } from '../../shared/script/index'
 import type { Db } from '../db/knex'
-import { deleteOutline, findOutline, insertOutline, listOutlines, saveScript, updateOutline, type OutlineFields, type OutlineSummaryRow } from '../db/outlines'
+import { deleteOutline, findOutline, findOutlineStamp, findOutlineText, insertOutline, listOutlines, saveScript, updateOutline, type OutlineFields, type OutlineSummaryRow } from '../db/outlines'
 import { findPuzzle } from '../db/puzzles'
 import type { OutlineRow } from '../db/tables'
 import { HttpError, notFound, stale } from '../errors'
@@ -23,8 +23,22 @@ export async function outlinesOf(db: Db, channelId: number, puzzleId: number): P
   return (await listOutlines(db, puzzleId)).map(toSummary)
 }
 
-export async function outlineOf(db: Db, channelId: number, outlineId: number): Promise<OutlineRecord> {
-  return toRecord(await existing(db, channelId, outlineId))
+/** The ETag of an outline as stored now: it changes with every save (the version) and every restore (the time). */
+export async function outlineTagOf(db: Db, channelId: number, outlineId: number): Promise<string> {
+  const stamp = await findOutlineStamp(db, channelId, outlineId)
+  if (!stamp) throw notFound('Outline')
+  return `"outline-${outlineId}-${stamp.version}-${stamp.updated_at.getTime()}"`
+}
+
+/**
+ * The outline as an OutlineRecord in JSON text. The stored document goes in as PostgreSQL prints it: a
+ * 130 KB document is neither parsed nor serialised again on the request thread.
+ */
+export async function outlineJsonOf(db: Db, channelId: number, outlineId: number): Promise<string> {
+  const row = await findOutlineText(db, channelId, outlineId)
+  if (!row) throw notFound('Outline')
+  const summary = JSON.stringify(toSummary(row))
+  return `${summary.slice(0, -1)},"outline":${row.document}}`
 }
 
 /** Runs the engine (in the worker pool) on a unique puzzle and stores its outline, even when the path gets stuck. */

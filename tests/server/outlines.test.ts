@@ -6,7 +6,7 @@ import type { Engine } from '../../server/workers/engine-pool'
 import { createExportPool } from '../../server/workers/export-pool'
 import { parsePuzzle, solvePath } from '../../shared/engine/index'
 import { outlineSchema, type Outline } from '../../shared/schemas/outline'
-import type { OutlineRecord, PuzzleRecord } from '../../shared/schemas/studio'
+import { outlineRecordSchema, type OutlineRecord, type PuzzleRecord } from '../../shared/schemas/studio'
 import { buildOutline, editLineText, hideLine, timeline } from '../../shared/script/index'
 import { useApiSuite } from '../helpers/api'
 import { oracleSolve } from '../helpers/sat-oracle'
@@ -135,6 +135,44 @@ describe('GET /api/channels/:channelId/puzzles/:puzzleId/outlines', () => {
   it('should count outlines on the puzzle', async () => {
     const res = await as('editor').get(`/api/channels/${api.channelId}/puzzles/${thermo.id}`)
     expect(res.body.outlineCount).toBe((await api.db('outlines').where({ puzzle_id: thermo.id })).length)
+  })
+})
+
+describe('GET /api/channels/:channelId/outlines/:outlineId', () => {
+  it('should send the record the schema describes, with an ETag browsers must revalidate', async () => {
+    const res = await as('presenter').get(outlinePath(first.id))
+    expect(res.status).toBe(200)
+    expect(res.headers['content-type']).toBe('application/json; charset=utf-8')
+    expect(res.headers['cache-control']).toBe('private, no-cache')
+    expect(res.headers.etag).toMatch(/^"[^"]+"$/)
+    expect(outlineRecordSchema.parse(res.body)).toEqual(first)
+    expect(res.body).toEqual(first)
+  })
+
+  it('should answer 304 from one query that never reads the document while the outline is unchanged, 200 after a save', async () => {
+    const copy = await copyOfFirst()
+    const { etag } = (await as('editor').get(outlinePath(copy.id))).headers
+    const queries: string[] = []
+    const record = (q: { sql: string }) => queries.push(q.sql)
+    api.db.on('query', record)
+    const again = await as('presenter').get(outlinePath(copy.id)).set('If-None-Match', etag)
+    api.db.off('query', record)
+    expect(again.status).toBe(304)
+    expect(again.text).toBe('')
+    expect(queries.filter((sql) => sql.includes('outlines'))).toHaveLength(1)
+    expect(queries.join('\n')).not.toMatch(/document/)
+
+    const saved = await as('editor').patch(outlinePath(copy.id), { version: 1, outline: retitled(copy.outline, 'Changed since.') })
+    const after = await as('presenter').get(outlinePath(copy.id)).set('If-None-Match', etag)
+    expect(after.status).toBe(200)
+    expect(after.headers.etag).not.toBe(etag)
+    expect(after.body).toEqual(saved.body)
+  })
+
+  it('should check who asks before answering 304', async () => {
+    const { etag } = (await as('editor').get(outlinePath(first.id))).headers
+    expect((await as('anonymous').get(outlinePath(first.id)).set('If-None-Match', etag)).status).toBe(401)
+    expect((await as('non-member').get(outlinePath(first.id)).set('If-None-Match', etag)).status).toBe(404)
   })
 })
 
