@@ -8,7 +8,8 @@
 import { spawn, type ChildProcess } from 'node:child_process'
 import { cpus } from 'node:os'
 import autocannon from 'autocannon'
-import type { OutlineRecord, PuzzleRecord } from '../shared/schemas/studio'
+import { scriptOf } from '../shared/schemas/outline'
+import type { OutlineRecord, OutlineSummary, PuzzleRecord } from '../shared/schemas/studio'
 import { generateThermo } from '../tests/helpers/generate-thermo'
 
 const ROOT = new URL('..', import.meta.url)
@@ -90,7 +91,7 @@ function unexpectedAnswers(result: autocannon.Result, expectedStatus: number): n
 async function saves(base: string, channelId: number, outlines: OutlineRecord[], headers: Record<string, string>): Promise<Figures> {
   const runs = await Promise.all(
     outlines.map((first) => {
-      let record = first
+      let version = first.version
       let count = 0
       return autocannon({
         url: base,
@@ -102,15 +103,15 @@ async function saves(base: string, channelId: number, outlines: OutlineRecord[],
             method: 'PATCH',
             setupRequest: (request) => {
               count++
-              const lines = record.outline.lines.map((line, i) => (i === 1 ? { ...line, text: `${line.text.replace(/ \(take \d+\)$/, '')} (take ${count})`, edited: true } : line))
+              const lines = first.outline.lines.map((line, i) => (i === 1 ? { ...line, text: `${line.text} (take ${count})`, edited: true } : line))
               return {
                 ...request,
-                path: `/api/channels/${channelId}/outlines/${record.id}`,
-                body: JSON.stringify({ version: record.version, outline: { ...record.outline, lines } }),
+                path: `/api/channels/${channelId}/outlines/${first.id}`,
+                body: JSON.stringify({ version, script: scriptOf({ ...first.outline, lines }) }),
               }
             },
             onResponse: (status, body) => {
-              if (status === 200) record = JSON.parse(body) as OutlineRecord
+              if (status === 200) version = (JSON.parse(body) as OutlineSummary).version
             },
           },
         ],

@@ -1,5 +1,5 @@
 import type { Db } from './knex'
-import type { Outline } from '../../shared/schemas/outline'
+import type { OutlineScript } from '../../shared/schemas/outline'
 import type { OutlineRow } from './tables'
 
 export type OutlineFields = Pick<OutlineRow, 'name' | 'status' | 'step_count' | 'total_ms' | 'document'>
@@ -71,29 +71,31 @@ export async function insertOutline(db: Db, puzzleId: number, createdBy: number 
   return row as OutlineRow
 }
 
-/** A save's new script: the document with the engine's part as the client sent it back, and what follows from it. */
+/** A save's new script and what follows from it. */
 export interface ScriptSave {
   /** a new name, or undefined to keep the stored one */
   name: string | undefined
   total_ms: number
-  document: Outline
+  /** how many engine steps the script's lines cover: it must be the stored count */
+  step_count: number
+  script: OutlineScript
 }
 
+// the document's keys a save writes; removed first, so a key the script no longer has (a cleared target) goes too
+const SCRIPT_KEYS_SQL = "array['pace', 'names', 'targetMs', 'lines', 'chapters']"
+
 /**
- * Saves over `version` in one statement, only when the document's engine part (status, puzzle, steps)
- * equals the stored one. PostgreSQL compares them, so the stored document is never sent here or parsed,
- * and its steps are kept as stored. Undefined when nothing was written: the outline is missing or in
- * another channel, someone saved a newer version first, or the engine part differs.
+ * Writes a script over `version` in one statement, only when its lines cover the stored number of steps.
+ * The stored document's engine part is neither sent nor read: PostgreSQL merges the script into it.
+ * Undefined when nothing was written: the outline is missing or in another channel, someone saved a
+ * newer version first, or the lines don't fit the steps.
  */
 export async function saveScript(db: Db, channelId: number, outlineId: number, version: number, save: ScriptSave): Promise<OutlineSummaryRow | undefined> {
-  const { steps, ...script } = save.document
   const [row] = await db('outlines')
-    .where({ id: outlineId, version, status: script.status })
+    .where({ id: outlineId, version, step_count: save.step_count })
     .whereIn('puzzle_id', db('puzzles').select('id').where({ channel_id: channelId }))
-    .whereRaw("document -> 'puzzle' = ?::jsonb", [JSON.stringify(script.puzzle)])
-    .whereRaw("document -> 'steps' = ?::jsonb", [JSON.stringify(steps)])
     .update({
-      document: db.raw("jsonb_set(?::jsonb, '{steps}', document -> 'steps')", [JSON.stringify(script)]),
+      document: db.raw(`(document - ${SCRIPT_KEYS_SQL}::text[]) || ?::jsonb`, [JSON.stringify(save.script)]),
       ...(save.name === undefined ? {} : { name: save.name }),
       total_ms: save.total_ms,
       version: version + 1,
@@ -103,13 +105,13 @@ export async function saveScript(db: Db, channelId: number, outlineId: number, v
   return row as OutlineSummaryRow | undefined
 }
 
-/** Saves over `version`; undefined when the row is gone or someone saved a newer version first. */
-export async function updateOutline(db: Db, outlineId: number, version: number, fields: OutlineFields): Promise<OutlineRow | undefined> {
-  const [row] = await db('outlines')
-    .where({ id: outlineId, version })
-    .update({ ...toColumns(db, fields), version: version + 1, updated_at: db.fn.now() })
-    .returning('*')
-  return row as OutlineRow | undefined
+/** An outline's summary without its document, only when its puzzle belongs to the channel. */
+export function findOutlineSummary(db: Db, channelId: number, outlineId: number): Promise<OutlineSummaryRow | undefined> {
+  return db('outlines')
+    .join('puzzles', 'puzzles.id', 'outlines.puzzle_id')
+    .where('outlines.id', outlineId)
+    .andWhere('puzzles.channel_id', channelId)
+    .first(...SUMMARY_COLUMNS.map((c) => `outlines.${c}`))
 }
 
 export async function deleteOutline(db: Db, outlineId: number): Promise<boolean> {

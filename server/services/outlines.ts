@@ -1,10 +1,8 @@
-import { isDeepStrictEqual } from 'node:util'
-import { z } from 'zod'
-import { stepSchema, type Outline } from '../../shared/schemas/outline'
+import { scriptProblems, stepsCoveredBy, type Outline } from '../../shared/schemas/outline'
 import type { OutlineCreate, OutlineRecord, OutlineSave, OutlineSummary, PuzzleCheck } from '../../shared/schemas/studio'
 import { timeline } from '../../shared/script/index'
 import type { Db } from '../db/knex'
-import { deleteOutline, findOutline, findOutlineStamp, findOutlineText, insertOutline, listOutlines, saveScript, updateOutline, type OutlineFields, type OutlineSummaryRow } from '../db/outlines'
+import { deleteOutline, findOutline, findOutlineStamp, findOutlineSummary, findOutlineText, insertOutline, listOutlines, saveScript, type OutlineFields, type OutlineSummaryRow } from '../db/outlines'
 import { findPuzzle } from '../db/puzzles'
 import type { OutlineRow } from '../db/tables'
 import { HttpError, notFound, stale } from '../errors'
@@ -58,36 +56,30 @@ export async function makeOutline(db: Db, engine: Engine, channelId: number, puz
 }
 
 /**
- * Saves edited lines, chapters and timing if nobody saved since `version` was read (otherwise 409
- * with the current copy). The engine's part (steps, puzzle, status) must come back unchanged.
+ * Saves edited lines, chapters and timing if nobody saved since `version` was read (otherwise 409 with the
+ * current copy). Answers the summary: the client already holds the document it sent.
  */
-export async function saveOutline(db: Db, channelId: number, outlineId: number, save: OutlineSave): Promise<OutlineRecord> {
-  const saved = await saveScript(db, channelId, outlineId, save.version, { name: save.name, total_ms: totalMsOf(save.outline), document: save.outline })
-  // the stored steps equal the ones sent back, so the saved document is the one sent
-  if (saved) return { ...toSummary(saved), outline: save.outline }
-  return saveAfterReading(db, channelId, outlineId, save)
+export async function saveOutline(db: Db, channelId: number, outlineId: number, save: OutlineSave): Promise<OutlineSummary> {
+  const saved = await saveScript(db, channelId, outlineId, save.version, {
+    name: save.name,
+    total_ms: Math.round(timeline(save.script).totalMs),
+    step_count: stepsCoveredBy(save.script),
+    script: save.script,
+  })
+  if (saved) return toSummary(saved)
+  return whyNotSaved(db, channelId, outlineId, save)
 }
 
-/**
- * The careful save, after the one-statement save wrote nothing: it reads the stored outline to say why
- * (404, 409 with the current copy, or 400), and saves a document whose stored steps carry fields the
- * schema drops (the request can't send those back, so PostgreSQL's comparison found a difference).
- */
-async function saveAfterReading(db: Db, channelId: number, outlineId: number, save: OutlineSave): Promise<OutlineRecord> {
-  const current = await existing(db, channelId, outlineId)
-  if (current.version !== save.version) throw stale('outline', toRecord(current))
-  // the stored steps go through the same schema as the request, so fields it drops don't count as changes
-  if (!isDeepStrictEqual(save.outline.steps, stepsSchema.parse(current.document.steps))) {
-    throw new HttpError(400, 'steps-changed', "The engine steps of an outline can't be changed; edit the lines instead")
-  }
-  if (save.outline.status !== current.document.status || !isDeepStrictEqual(save.outline.puzzle, current.document.puzzle)) {
-    throw new HttpError(400, 'puzzle-changed', "The puzzle and status of an outline come from the engine and can't be changed; make a new outline instead")
-  }
-  // keep the stored steps byte for byte, including any fields the engine added that the schema doesn't know
-  const document: Outline = { ...save.outline, steps: current.document.steps }
-  const row = await updateOutline(db, outlineId, save.version, fieldsOf(save.name ?? current.name, document))
-  if (row) return toRecord(row)
-  throw stale('outline', toRecord(await existing(db, channelId, outlineId)))
+/** After the one-statement save wrote nothing, reads the outline's summary to say why: 404, 409 with the current copy, or 400. */
+async function whyNotSaved(db: Db, channelId: number, outlineId: number, save: OutlineSave): Promise<never> {
+  const current = await findOutlineSummary(db, channelId, outlineId)
+  if (!current) throw notFound('Outline')
+  if (current.version !== save.version) throw stale('outline', toRecord(await existing(db, channelId, outlineId)))
+  const problems = scriptProblems(save.script, current.step_count)
+  // version and lines fit now: the row changed between the two statements, so show the copy it holds
+  if (problems.length === 0) throw stale('outline', toRecord(await existing(db, channelId, outlineId)))
+  // the schema checked everything else, so what is left is how many steps the lines cover
+  throw new HttpError(400, 'invalid-input', `body.script.lines: ${problems[0]}`, problems.map((message) => ({ path: 'body.script.lines', message })))
 }
 
 /** A new outline with the same document, to try another take without losing this one. */
@@ -101,8 +93,6 @@ export async function removeOutline(db: Db, channelId: number, outlineId: number
   await existing(db, channelId, outlineId)
   if (!(await deleteOutline(db, outlineId))) throw notFound('Outline')
 }
-
-const stepsSchema = z.array(stepSchema)
 
 async function existing(db: Db, channelId: number, outlineId: number): Promise<OutlineRow> {
   const row = await findOutline(db, channelId, outlineId)

@@ -59,67 +59,113 @@ const chapterSchema = z.object({
 })
 export type Chapter = z.infer<typeof chapterSchema>
 
+/** The part of an outline a person edits in the studio; the rest (steps, puzzle, status, title) comes from the engine and the puzzle. */
+const scriptShape = {
+  pace,
+  names: namingStyleSchema,
+  targetMs: z.int().min(1).max(DAY_MS, 'a target length must be under 24 hours').optional(),
+  lines: z.array(outlineLineSchema).min(1).max(LINES_MAX),
+  chapters: z.array(chapterSchema).min(1).max(LINES_MAX),
+}
+const SCRIPT_KEYS = ['pace', 'names', 'targetMs', 'lines', 'chapters'] as const
+
+/**
+ * What a save sends: the script alone. Checks that need no steps run here; whether the lines cover
+ * every step is checked by whoever knows how many there are (`scriptProblems` with the step count).
+ */
+export const outlineScriptSchema = z
+  .object(scriptShape)
+  // only on a script whose every field passed: the checks read lines[0] and walk the lists
+  .superRefine((s, ctx) => {
+    for (const message of scriptProblems(s)) ctx.addIssue({ code: 'custom', message })
+  }, { when: (payload) => payload.issues.length === 0 })
+export type OutlineScript = z.infer<typeof outlineScriptSchema>
+
 export const outlineSchema = z
   .object({
     version: z.literal(1),
     title: puzzleTitleSchema,
     author: puzzleAuthorSchema.optional(),
     link: webAddress('link').optional(),
-    pace,
-    names: namingStyleSchema,
-    targetMs: z.int().min(1).max(DAY_MS, 'a target length must be under 24 hours').optional(),
+    // in the order documents have always been written in
+    pace: scriptShape.pace,
+    names: scriptShape.names,
+    targetMs: scriptShape.targetMs,
     status: z.enum(['solved', 'stuck']),
     puzzle: z.object({
       givens: z.string().regex(/^[1-9.]{81}$/, 'givens must be 81 characters, 1-9 or "."'),
       thermometers: z.array(z.array(cellSchema).min(2).max(9)).max(81),
     }),
     steps: z.array(stepSchema).min(1).max(STEPS_MAX),
-    lines: z.array(outlineLineSchema).min(1).max(LINES_MAX),
-    chapters: z.array(chapterSchema).min(1).max(LINES_MAX),
+    lines: scriptShape.lines,
+    chapters: scriptShape.chapters,
   })
-  // only on an outline whose every field passed: the checks below read lines[0] and walk the lists
+  // only on an outline whose every field passed: the checks read lines[0] and walk the lists
   .superRefine((o, ctx) => {
-    const issue = (message: string) => ctx.addIssue({ code: 'custom', message })
-    const ids = new Set<number>()
-    let nextStep = 0
-    o.lines.forEach((line, i) => {
-      if (ids.has(line.id)) issue(`line ${line.id} appears twice`)
-      ids.add(line.id)
-      if (line.kind === 'intro' && i !== 0) issue('the intro must be the first line')
-      if (line.kind === 'outro' && i !== o.lines.length - 1) issue('the outro must be the last line')
-      if (line.kind !== 'step' && line.steps.length > 0) issue(`line ${line.id} is an ${line.kind} and covers no steps`)
-      if (line.kind === 'step' && line.steps.length === 0) issue(`line ${line.id} covers no steps`)
-      for (const s of line.steps) {
-        if (s !== nextStep) {
-          issue(`line ${line.id} covers step ${s + 1}, expected step ${nextStep + 1}`)
-          return
-        }
-        nextStep++
-      }
-    })
-    if (nextStep !== o.steps.length) issue(`the lines cover ${nextStep} of ${o.steps.length} steps`)
-    const seen = new Set<number>()
-    for (const ch of o.chapters) {
-      if (!ids.has(ch.lineId)) issue(`chapter "${ch.title}" starts at line ${ch.lineId}, which does not exist`)
-      if (seen.has(ch.lineId)) issue(`two chapters start at line ${ch.lineId}`)
-      seen.add(ch.lineId)
-    }
-    if (o.chapters.length > 0 && o.chapters[0].lineId !== o.lines[0].id) issue('the first chapter must start at the first line')
-    const order = new Map(o.lines.map((l, i) => [l.id, i]))
-    for (let i = 1; i < o.chapters.length; i++) {
-      if ((order.get(o.chapters[i].lineId) ?? -1) <= (order.get(o.chapters[i - 1].lineId) ?? -1)) {
-        issue('chapters must be in line order')
-        break
-      }
-    }
-    let lastAligned = -1
-    for (const line of o.lines) {
-      if (line.alignedStartMs === undefined) continue
-      if (line.alignedStartMs < lastAligned) issue(`line ${line.id} is aligned before the line above it`)
-      lastAligned = line.alignedStartMs
-    }
+    for (const message of scriptProblems(o, o.steps.length)) ctx.addIssue({ code: 'custom', message })
   }, { when: (payload) => payload.issues.length === 0 })
 export type Outline = z.infer<typeof outlineSchema>
+
+/** The editable part of an outline, as a save sends it. */
+export function scriptOf(outline: Outline): OutlineScript {
+  const script: Partial<Record<keyof OutlineScript, unknown>> = {}
+  for (const key of SCRIPT_KEYS) if (outline[key] !== undefined) script[key] = outline[key]
+  return script as OutlineScript
+}
+
+/** How many engine steps the lines cover: the step count of the outline they belong to, when they are in order. */
+export function stepsCoveredBy(script: Pick<OutlineScript, 'lines'>): number {
+  return script.lines.reduce((sum, line) => sum + line.steps.length, 0)
+}
+
+/**
+ * Why a script can't stand (empty when it can): line ids, kinds and step order, chapters starting at lines in
+ * order, aligned times ascending; with `stepCount`, also that the lines cover exactly that many steps.
+ * Server and client run this one check: the server against the stored step count, without the steps.
+ */
+export function scriptProblems(s: Pick<OutlineScript, 'lines' | 'chapters'>, stepCount?: number): string[] {
+  const problems: string[] = []
+  const issue = (message: string) => problems.push(message)
+  const ids = new Set<number>()
+  let nextStep = 0
+  s.lines.forEach((line, i) => {
+    if (ids.has(line.id)) issue(`line ${line.id} appears twice`)
+    ids.add(line.id)
+    if (line.kind === 'intro' && i !== 0) issue('the intro must be the first line')
+    if (line.kind === 'outro' && i !== s.lines.length - 1) issue('the outro must be the last line')
+    if (line.kind !== 'step' && line.steps.length > 0) issue(`line ${line.id} is an ${line.kind} and covers no steps`)
+    if (line.kind === 'step' && line.steps.length === 0) issue(`line ${line.id} covers no steps`)
+    for (const step of line.steps) {
+      if (step !== nextStep) {
+        issue(`line ${line.id} covers step ${step + 1}, expected step ${nextStep + 1}`)
+        return
+      }
+      nextStep++
+    }
+  })
+  if (stepCount !== undefined && nextStep !== stepCount) issue(`the lines cover ${nextStep} of ${stepCount} steps`)
+  const seen = new Set<number>()
+  for (const ch of s.chapters) {
+    if (!ids.has(ch.lineId)) issue(`chapter "${ch.title}" starts at line ${ch.lineId}, which does not exist`)
+    if (seen.has(ch.lineId)) issue(`two chapters start at line ${ch.lineId}`)
+    seen.add(ch.lineId)
+  }
+  if (s.chapters.length > 0 && s.chapters[0].lineId !== s.lines[0].id) issue('the first chapter must start at the first line')
+  const order = new Map(s.lines.map((l, i) => [l.id, i]))
+  for (let i = 1; i < s.chapters.length; i++) {
+    if ((order.get(s.chapters[i].lineId) ?? -1) <= (order.get(s.chapters[i - 1].lineId) ?? -1)) {
+      issue('chapters must be in line order')
+      break
+    }
+  }
+  let lastAligned = -1
+  for (const line of s.lines) {
+    if (line.alignedStartMs === undefined) continue
+    if (line.alignedStartMs < lastAligned) issue(`line ${line.id} is aligned before the line above it`)
+    lastAligned = line.alignedStartMs
+  }
+  return problems
+}
 
 const lineId = z.int().min(1)
 // as typed: the edits themselves tidy white space and say what is wrong with an empty text or title

@@ -9,14 +9,14 @@
  *   GET    /puzzles/:puzzleId/outlines        outline.read    → OutlineSummary[]
  *   POST   /puzzles/:puzzleId/outlines        outline.create  body OutlineCreate → OutlineRecord (201); engine runs in a worker pool
  *   GET    /outlines/:outlineId               outline.read    → OutlineRecord
- *   PATCH  /outlines/:outlineId               outline.edit    body OutlineSave → OutlineRecord; stale version → 409 StaleBody
+ *   PATCH  /outlines/:outlineId               outline.edit    body OutlineSave → OutlineSummary; stale version → 409 StaleBody (whole record)
  *   GET    /outlines/:outlineId/cue-sheet.pdf outline.read    ?thumbnails=1 → the printable cue sheet (PDF)
  *   POST   /outlines/:outlineId/duplicate     outline.create  → OutlineRecord (201)
  *   DELETE /outlines/:outlineId               outline.create  → 204
  */
 import { z } from 'zod'
 import { puzzleFileShape } from './puzzle'
-import { namingStyleSchema, outlineSchema, PACE_MAX, PACE_MIN } from './outline'
+import { namingStyleSchema, outlineSchema, outlineScriptSchema, PACE_MAX, PACE_MIN } from './outline'
 import { text, webAddress } from './text'
 
 /** What the puzzle form sends. Structure only: a draft may still be invalid or not yet unique. */
@@ -91,7 +91,8 @@ export const outlineSaveSchema = z.object({
   /** the version the client read; a different current version answers 409 */
   version: z.int().min(1),
   name: takeName.optional(),
-  outline: outlineSchema,
+  /** only what a person edits: the client already holds the rest, and the server keeps it as stored */
+  script: outlineScriptSchema,
 })
 export type OutlineSave = z.infer<typeof outlineSaveSchema>
 

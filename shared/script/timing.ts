@@ -84,7 +84,7 @@ export interface Timeline {
  * Start and duration of every line, and the total. Hidden lines take no time. Aligned starts
  * win over estimates; an estimated line that would run past the next aligned start is cut short.
  */
-export function timeline(outline: Outline): Timeline {
+export function timeline(outline: Pick<Outline, 'lines' | 'chapters'>): Timeline {
   const visible = outline.lines.filter((l) => !l.hidden)
   const starts: number[] = []
   visible.forEach((l, i) => {

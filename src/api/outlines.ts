@@ -21,10 +21,13 @@ export function createOutline(channelId: number, puzzleId: number, body: Outline
   return http.post(`${channelBase(channelId)}/puzzles/${puzzleId}/outlines`, body, outlineRecordSchema)
 }
 
-/** Saves over `body.version`; if someone saved since, rejects with a StaleError holding their copy. */
-export function saveOutline(channelId: number, outlineId: number, body: OutlineSave): Promise<OutlineRecord> {
+/**
+ * Saves a script over `body.version` and resolves to the new summary (version, time, total); if someone saved
+ * since, rejects with a StaleError holding their whole record.
+ */
+export function saveOutline(channelId: number, outlineId: number, body: OutlineSave): Promise<OutlineSummary> {
   return withStaleCheck(
-    () => http.patch(`${channelBase(channelId)}/outlines/${outlineId}`, body, outlineRecordSchema),
+    () => http.patch(`${channelBase(channelId)}/outlines/${outlineId}`, body, outlineSummarySchema),
     outlineRecordSchema,
     () => getOutline(channelId, outlineId),
   )

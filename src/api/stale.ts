@@ -18,8 +18,9 @@ export function isStaleError<T = unknown>(value: unknown): value is StaleError<T
 
 /**
  * Turns a 409 from a versioned save into a StaleError holding the server's copy (`details.current` of its StaleBody); a copy that doesn't parse is fetched again.
+ * The copy may be larger than what a save answers (an outline save answers its summary, a 409 the whole record).
  */
-export async function withStaleCheck<T>(save: () => Promise<T>, parser: Parser<T>, fetchCurrent: () => Promise<T>): Promise<T> {
+export async function withStaleCheck<T, Current = T>(save: () => Promise<T>, parser: Parser<Current>, fetchCurrent: () => Promise<Current>): Promise<T> {
   try {
     return await save()
   } catch (error) {

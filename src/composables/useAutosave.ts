@@ -4,7 +4,7 @@ import { useTimeoutFn } from '@vueuse/core'
 import { z } from 'zod'
 import { outlineSchema } from '@shared/schemas/outline'
 import type { Outline } from '@shared/schemas/outline'
-import type { OutlineRecord } from '@shared/schemas/studio'
+import type { OutlineRecord, OutlineSummary } from '@shared/schemas/studio'
 import { DATABASE_UNAVAILABLE, isApiError, retryDelayMs } from '@/api/http'
 import { isStaleError } from '@/api/stale'
 import { useUnsavedChangesGuard } from '@/composables/useUnsavedChangesGuard'
@@ -19,10 +19,11 @@ export interface AutosaveOptions {
   outlineId: MaybeRefOrGetter<number>
   /** The outline as it is now in the editor; every new snapshot counts as a change. */
   outline: Readonly<Ref<Outline | null>>
-  /** PATCH with the version read; resolves to the saved record, rejects with a StaleError<OutlineRecord> when stale (src/api/outlines.ts). */
-  save: (version: number, outline: Outline) => Promise<OutlineRecord>
+  /** PATCH with the version read; resolves to the saved summary, rejects with a StaleError<OutlineRecord> when stale (src/api/outlines.ts). */
+  save: (version: number, outline: Outline) => Promise<OutlineSummary>
   /** Puts a document in the editor (taking the server's copy, discarding a restored one). */
   replace: (outline: Outline) => void
+  /** The record the server now holds: the summary it answered with the outline that was sent. */
   onSaved?: (record: OutlineRecord) => void
   /** Quiet time after the last edit before saving. */
   delayMs?: number
@@ -150,12 +151,12 @@ export function useAutosave(options: AutosaveOptions) {
     }
     status.value = 'saving'
     try {
-      const record = await options.save(version.value, sending)
-      version.value = record.version
+      const summary = await options.save(version.value, sending)
+      version.value = summary.version
       baseline.value = sending
       lastError.value = null
       failures = 0
-      options.onSaved?.(record)
+      options.onSaved?.({ ...summary, outline: sending })
       if (options.outline.value === sending) {
         status.value = 'saved'
         removeLocal()

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest'
+import { scriptOf } from '@shared/schemas/outline'
 import type { OutlineRecord } from '@shared/schemas/studio'
 import { isApiError } from '@/api/http'
 import { saveOutline } from '@/api/outlines'
@@ -8,7 +9,7 @@ import { api, apiPath, http, HttpResponse } from './msw'
 
 const OUTLINE_URL = apiPath('/channels/1/outlines/31')
 const doc = outlineFor('PE01')
-const mine = { version: 3, outline: doc }
+const mine = { version: 3, script: scriptOf(doc) }
 const theirs = recordFor({ ...doc, pace: doc.pace + 20 }, { version: 4 })
 
 /** The 409 the server sends for a stale version (StaleBody in shared/schemas/studio.ts), with `details` as given. */
@@ -57,9 +58,10 @@ describe('saving an outline over a newer version (the API layer owns the 409)', 
     expect(isApiError(error) && error.status).toBe(403)
   })
 
-  it('should resolve to the saved record when the version is current', async () => {
-    api.use(http.patch(OUTLINE_URL, async ({ request }) => HttpResponse.json(recordFor(((await request.json()) as typeof mine).outline, { version: 4 }))))
+  it('should resolve to the saved summary when the version is current', async () => {
+    const { outline: _kept, ...summary } = recordFor(doc, { version: 4 })
+    api.use(http.patch(OUTLINE_URL, () => HttpResponse.json(summary)))
 
-    await expect(saveOutline(1, 31, mine)).resolves.toMatchObject({ version: 4, outline: doc })
+    await expect(saveOutline(1, 31, mine)).resolves.toEqual(summary)
   })
 })

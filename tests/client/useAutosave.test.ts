@@ -5,7 +5,8 @@ import userEvent from '@testing-library/user-event'
 import { flushPromises } from '@vue/test-utils'
 import PrimeVue from 'primevue/config'
 import type { Outline } from '@shared/script'
-import type { OutlineRecord } from '@shared/schemas/studio'
+import { scriptOf, type OutlineScript } from '@shared/schemas/outline'
+import type { OutlineRecord, OutlineSummary } from '@shared/schemas/studio'
 import { saveOutline } from '@/api/outlines'
 import StudioConflictDialog from '@/components/StudioConflictDialog.vue'
 import StudioSaveStatus from '@/components/StudioSaveStatus.vue'
@@ -24,8 +25,20 @@ const KEY = localCopyKey(OUTLINE_ID)
 
 interface SentSave {
   version: number
-  outline: Outline
+  script: OutlineScript
 }
+
+/** What the server answers a save: the summary of what it now holds, never the document. */
+const savedSummary = (version: number): OutlineSummary => ({
+  id: OUTLINE_ID,
+  puzzleId: 4,
+  name: 'First take',
+  status: 'solved',
+  stepCount: 10,
+  totalMs: 0,
+  version,
+  updatedAt: '2025-03-01T10:05:00.000Z',
+})
 
 // The Studio's wiring of saving: the editor's outline, the real API module, the save status and the conflict dialog.
 function renderAutosave(record: OutlineRecord, tuning: Pick<AutosaveOptions, 'retryMs' | 'maxRetryMs'> = {}) {
@@ -37,7 +50,7 @@ function renderAutosave(record: OutlineRecord, tuning: Pick<AutosaveOptions, 're
       autosave = useAutosave({
         outlineId: OUTLINE_ID,
         outline: editor.outline,
-        save: (version, outline) => saveOutline(CHANNEL, OUTLINE_ID, { version, outline }),
+        save: (version, outline) => saveOutline(CHANNEL, OUTLINE_ID, { version, script: scriptOf(outline) }),
         replace: editor.replace,
         ...tuning,
       })
@@ -83,7 +96,7 @@ function acceptSaves(): SentSave[] {
     http.patch(OUTLINE_URL, async ({ request }) => {
       const body = (await request.json()) as SentSave
       sent.push(body)
-      return HttpResponse.json(recordFor(body.outline, { version: body.version + 1 }))
+      return HttpResponse.json(savedSummary(body.version + 1))
     }),
   )
   return sent
@@ -141,8 +154,11 @@ describe('useAutosave', () => {
     await flushPromises()
     expect(sent).toHaveLength(1)
     expect(sent[0].version).toBe(3)
-    expect(sent[0].outline.lines[3].hidden).toBe(true)
-    expect(sent[0].outline.lines[4].text).toBe('And that gives us the 9.')
+    expect(sent[0].script.lines[3].hidden).toBe(true)
+    expect(sent[0].script.lines[4].text).toBe('And that gives us the 9.')
+    // only what a person edits travels: the engine's steps stay on the server
+    expect(Object.keys(sent[0]).sort()).toEqual(['script', 'version'])
+    expect(sent[0].script).not.toHaveProperty('steps')
     expect(status()).toHaveTextContent(/^Saved$/)
     expect(autosave.version.value).toBe(4)
 
@@ -167,13 +183,13 @@ describe('useAutosave', () => {
   })
 
   it('should re-base the local copy on our own save when edits arrive while it is on its way', async () => {
-    const { sent, answer } = holdSaves()
+    const { answer } = holdSaves()
     const { editor } = renderAutosave(recordFor(doc, { version: 3 }))
     editor.apply({ op: 'hideLine', lineId: doc.lines[3].id })
     await vi.advanceTimersByTimeAsync(1000)
     editor.apply({ op: 'hideLine', lineId: doc.lines[4].id })
     await flushPromises()
-    answer(HttpResponse.json(recordFor(sent[0].outline, { version: 4 })))
+    answer(HttpResponse.json(savedSummary(4)))
     await flushPromises()
     // a reload now must not take version 4 (our own save) for someone else's
     expect(localCopy()).toMatchObject({ baseVersion: 4 })
@@ -204,7 +220,7 @@ describe('useAutosave', () => {
   })
 
   it('should keep a local copy until the server has the outline, showing "Saving…" meanwhile', async () => {
-    const { sent, answer } = holdSaves()
+    const { answer } = holdSaves()
     const { editor } = renderAutosave(recordFor(doc, { version: 3 }))
     editor.apply({ op: 'renameChapter', lineId: doc.chapters[0].lineId, title: 'How it works' })
     await flushPromises()
@@ -215,7 +231,7 @@ describe('useAutosave', () => {
     expect(status()).toHaveTextContent(/^Saving…$/)
     expect(localCopy()).not.toBeNull()
 
-    answer(HttpResponse.json(recordFor(sent[0].outline, { version: 4 })))
+    answer(HttpResponse.json(savedSummary(4)))
     await flushPromises()
     expect(status()).toHaveTextContent(/^Saved$/)
     expect(localCopy()).toBeNull()
@@ -230,7 +246,7 @@ describe('useAutosave', () => {
         sent.push(body.version)
         return failing
           ? HttpResponse.json({ code: 'engine-busy', message: 'Try again soon.' }, { status: 503 })
-          : HttpResponse.json(recordFor(body.outline, { version: 4 }))
+          : HttpResponse.json(savedSummary(4))
       }),
     )
     const { editor } = renderAutosave(recordFor(doc, { version: 3 }))
@@ -263,7 +279,7 @@ describe('useAutosave', () => {
           sent.push(body)
           return away
             ? HttpResponse.json({ code: 'database-unavailable', message: NOT_STORED }, { status: 503 })
-            : HttpResponse.json(recordFor(body.outline, { version: body.version + 1 }))
+            : HttpResponse.json(savedSummary(body.version + 1))
         }),
       )
       return { sent, back: () => (away = false), gone: () => (away = true) }
@@ -353,8 +369,8 @@ describe('useAutosave', () => {
       expect(sent).toHaveLength(1)
       await wait(1)
       expect(sent).toHaveLength(2)
-      expect(sent[1].outline.lines[3].hidden).toBe(true)
-      expect(sent[1].outline.lines[4].text).toBe('Typed while the database was away.')
+      expect(sent[1].script.lines[3].hidden).toBe(true)
+      expect(sent[1].script.lines[4].text).toBe('Typed while the database was away.')
       expect(status()).toHaveTextContent(/^Saved$/)
     })
 
@@ -379,7 +395,7 @@ describe('useAutosave', () => {
       http.patch(OUTLINE_URL, async ({ request }) => {
         const body = (await request.json()) as SentSave
         sent.push(body.version)
-        return offline ? HttpResponse.error() : HttpResponse.json(recordFor(body.outline, { version: 4 }))
+        return offline ? HttpResponse.error() : HttpResponse.json(savedSummary(4))
       }),
     )
     const { editor } = renderAutosave(recordFor(doc, { version: 3 }))
@@ -397,7 +413,7 @@ describe('useAutosave', () => {
   })
 
   it('should ask before the tab closes while edits are not saved, and not once they are', async () => {
-    const { answer, sent } = holdSaves()
+    const { answer } = holdSaves()
     const { editor } = renderAutosave(recordFor(doc, { version: 3 }))
     const closing = () => {
       const event = new Event('beforeunload', { cancelable: true })
@@ -412,7 +428,7 @@ describe('useAutosave', () => {
     await vi.advanceTimersByTimeAsync(1000)
     expect(closing()).toBe(true)
 
-    answer(HttpResponse.json(recordFor(sent[0].outline, { version: 4 })))
+    answer(HttpResponse.json(savedSummary(4)))
     await flushPromises()
     expect(closing()).toBe(false)
   })
@@ -427,7 +443,7 @@ describe('useAutosave', () => {
     view.unmount()
     await flushPromises()
     expect(sent).toHaveLength(1)
-    expect(sent[0].outline.lines[3].hidden).toBe(true)
+    expect(sent[0].script.lines[3].hidden).toBe(true)
     expect(localCopy()).toBeNull()
   })
 
@@ -485,7 +501,7 @@ describe('useAutosave', () => {
         sent.push(body)
         // the server's 409 carries its copy under details.current (StaleBody in shared/schemas/studio.ts)
         if (body.version === 3) return HttpResponse.json({ code: 'stale', message: 'Someone saved first.', details: { current: theirs } }, { status: 409 })
-        return HttpResponse.json(recordFor(body.outline, { version: body.version + 1 }))
+        return HttpResponse.json(savedSummary(body.version + 1))
       }),
     )
     const { editor, autosave } = renderAutosave(recordFor(doc, { version: 3 }))
@@ -509,7 +525,7 @@ describe('useAutosave', () => {
     await flushPromises()
     expect(sent).toHaveLength(2)
     expect(sent[1].version).toBe(4)
-    expect(sent[1].outline.lines[5].text).toBe('My own take on this line.')
+    expect(sent[1].script.lines[5].text).toBe('My own take on this line.')
     expect(status()).toHaveTextContent(/^Saved$/)
     expect(autosave.version.value).toBe(5)
     expect(localCopy()).toBeNull()

@@ -5,7 +5,7 @@
  * (in the order of the versions it was given), no save answered 409 left a trace, and nothing answers 500.
  */
 import { describe, expect, it } from 'vitest'
-import type { Outline } from '../../shared/schemas/outline'
+import { scriptOf, type Outline } from '../../shared/schemas/outline'
 import type { OutlineRecord, PuzzleRecord } from '../../shared/schemas/studio'
 import { editLineText } from '../../shared/script/index'
 import { useApiSuite, type Actor } from '../helpers/api'
@@ -77,7 +77,7 @@ describe('concurrent saves of one document', () => {
       const read = await api.as(client).get(outlinePath())
       const doc: Outline = read.body.outline
       const text = doc.lines.find((l) => l.id === line.id)!.text
-      return api.as(client).patch(outlinePath(), { version: read.body.version, outline: editLineText(doc, line.id, text + mark) })
+      return api.as(client).patch(outlinePath(), { version: read.body.version, script: scriptOf(editLineText(doc, line.id, text + mark)) })
     })
 
     const final: OutlineRecord = (await api.as('owner').get(outlinePath())).body

@@ -12,7 +12,7 @@ import { createApp } from '../../server/app'
 import { createDb, isConnectionFailure, type Db } from '../../server/db/knex'
 import type { EnginePool } from '../../server/workers/engine-pool'
 import { DEMO_PASSWORD } from '../../seeds/01_demo_channel'
-import type { Outline } from '../../shared/schemas/outline'
+import { scriptOf, type Outline } from '../../shared/schemas/outline'
 import type { OutlineRecord, PuzzleRecord } from '../../shared/schemas/studio'
 import { editLineText } from '../../shared/script/index'
 import { demoEmail, testEnginePool } from '../helpers/api'
@@ -90,7 +90,7 @@ describe('the database stopped and started under a running app', () => {
     const answers = {
       read: await timed(() => get(outlinePath())),
       list: await timed(() => get(`/api/channels/${channelId}/puzzles`)),
-      outlineSave: await timed(() => patch(outlinePath(), { version: outline.version, outline: retitled(outline.outline, 'Written while the database was away.') })),
+      outlineSave: await timed(() => patch(outlinePath(), { version: outline.version, script: scriptOf(retitled(outline.outline, 'Written while the database was away.')) })),
       puzzleSave: await timed(() => put(puzzlePath(), puzzleSave('Renamed while the database was away'))),
       signIn: await timed(() => request(app).post('/api/auth/sign-in').send({ email: demoEmail('owner'), password: DEMO_PASSWORD })),
       health: await timed(() => request(app).get('/api/health')),
@@ -122,14 +122,15 @@ describe('the database stopped and started under a running app', () => {
     expect(read.body.outline.lines[1].text).not.toBe('Written while the database was away.')
 
     // the browser's copy, sent again as the studio's autosave does, now lands
-    const resent = await patch(outlinePath(), { version: outline.version, outline: retitled(outline.outline, 'Written while the database was away.') })
+    const resent = await patch(outlinePath(), { version: outline.version, script: scriptOf(retitled(outline.outline, 'Written while the database was away.')) })
     expect(resent.status).toBe(200)
     expect(resent.body.version).toBe(outline.version + 1)
-    expect(resent.body.outline.lines[1].text).toBe('Written while the database was away.')
+    const stored = await get(outlinePath())
+    expect(stored.body.outline.lines[1].text).toBe('Written while the database was away.')
     const renamed = await put(puzzlePath(), puzzleSave('Renamed after the outage'))
     expect(renamed.status).toBe(200)
     expect(renamed.body.title).toBe('Renamed after the outage')
-    outline = resent.body
+    outline = stored.body
     puzzle = renamed.body
   })
 
@@ -139,7 +140,7 @@ describe('the database stopped and started under a running app', () => {
     const saves: Promise<request.Response>[] = []
     const wave = () => {
       reads.push(get(outlinePath()).then((res) => res))
-      saves.push(patch(outlinePath(), { version: outline.version, outline: retitled(outline.outline, `Racing save ${saves.length}`) }).then((res) => res))
+      saves.push(patch(outlinePath(), { version: outline.version, script: scriptOf(retitled(outline.outline, `Racing save ${saves.length}`)) }).then((res) => res))
     }
     // traffic starts with the database up and goes on until it has stopped, plus one wave after
     let stopped = false

@@ -18,7 +18,7 @@ import { createApp } from '../../server/app'
 import { issueToken } from '../../server/auth/tokens'
 import type { EndpointInfo } from '../../server/routes/endpoint'
 import { DEMO_PASSWORD } from '../../seeds/01_demo_channel'
-import type { Outline } from '../../shared/schemas/outline'
+import { scriptOf, type Outline } from '../../shared/schemas/outline'
 import { outlineCreateSchema, outlineSaveSchema, puzzleDraftSchema, puzzleUpdateSchema } from '../../shared/schemas/studio'
 import { captionCues } from '../../shared/script/captions'
 import { publishedChapters, toSrt, toWebVttCaptions, toWebVttChapters } from '../../shared/script/index'
@@ -63,7 +63,7 @@ const VALID: Record<string, () => Promise<unknown>> = {
   'POST /api/channels/:channelId/puzzles/:puzzleId/outlines': async () => ({ name: 'Take 2', pace: 170, names: 'coords' }),
   'PATCH /api/channels/:channelId/outlines/:outlineId': async () => {
     const current = await read('outlines', ids.outlineId)
-    return { version: current.version, name: 'Take 1', outline: current.outline }
+    return { version: current.version, name: 'Take 1', script: scriptOf(current.outline as Outline) }
   },
 }
 
@@ -92,8 +92,8 @@ const STORES: Record<string, { accept: (body: unknown) => unknown; readBack: (re
     compare: (stored, sent) => {
       if (sent.name !== undefined) expect(stored.name).toBe(sent.name)
       const saved = stored.outline as Outline
-      // the engine's steps are kept as stored; everything else is what was sent
-      expect(saved).toEqual({ ...(sent.outline as Outline), steps: saved.steps })
+      // the script is what was sent; the engine's part stays as stored
+      expect(scriptOf(saved)).toEqual(sent.script)
       expectExportsAsText(saved)
     },
   },
@@ -126,15 +126,15 @@ describe.each(writeRoutes.map((e) => ({ route: keyOf(e), endpoint: e })))('$rout
 describe('the inputs the attack run found', () => {
   const patchOutline = async (change: (o: Outline) => Outline) => {
     const { version, outline } = await read('outlines', ids.outlineId)
-    return request(app).patch(path(`outlines/${ids.outlineId}`)).set('Authorization', await ownerBearer()).send({ version, outline: change(outline as Outline) })
+    return request(app).patch(path(`outlines/${ids.outlineId}`)).set('Authorization', await ownerBearer()).send({ version, script: scriptOf(change(outline as Outline)) })
   }
   const withLine = (text: string) => (o: Outline) => ({ ...o, lines: o.lines.map((l, i) => (i === 1 ? { ...l, text } : l)) })
 
   it.each([
-    ['no lines', (o: Outline) => ({ ...o, lines: [] }), 'body.outline.lines: Too small: expected array to have >=1 items'],
-    ['a lone surrogate in a line', withLine('bulb \ud83c first'), "body.outline.lines.1.text: line text can't contain half of a UTF-16 surrogate pair (a broken character)"],
-    ['a NUL in a line', withLine('bulb\u0000first'), "body.outline.lines.1.text: line text can't contain a NUL character"],
-    ['a line of one 20,000-character word', withLine('w'.repeat(20_000)), 'body.outline.lines.1.text: line text can be at most 2000 characters'],
+    ['no lines', (o: Outline) => ({ ...o, lines: [] }), 'body.script.lines: Too small: expected array to have >=1 items'],
+    ['a lone surrogate in a line', withLine('bulb \ud83c first'), "body.script.lines.1.text: line text can't contain half of a UTF-16 surrogate pair (a broken character)"],
+    ['a NUL in a line', withLine('bulb\u0000first'), "body.script.lines.1.text: line text can't contain a NUL character"],
+    ['a line of one 20,000-character word', withLine('w'.repeat(20_000)), 'body.script.lines.1.text: line text can be at most 2000 characters'],
   ])('PATCH of an outline with %s → 400 naming the field (was 500, or a 24 s cue sheet)', async (_case, change, message) => {
     const res = await patchOutline(change)
     expect({ status: res.status, message: res.body.message }).toEqual({ status: 400, message })
@@ -168,7 +168,7 @@ describe('text that looks like markup', () => {
     const res = await request(app)
       .patch(path(`outlines/${ids.outlineId}`))
       .set('Authorization', await ownerBearer())
-      .send({ version, outline: { ...doc, lines, chapters } })
+      .send({ version, script: scriptOf({ ...doc, lines, chapters }) })
     expect(res.status, JSON.stringify(res.body)).toBe(200)
 
     const saved = (await read('outlines', ids.outlineId)).outline as Outline

@@ -5,7 +5,7 @@ import { makeOutline } from '../../server/services/outlines'
 import type { Engine } from '../../server/workers/engine-pool'
 import { createExportPool } from '../../server/workers/export-pool'
 import { parsePuzzle, solvePath } from '../../shared/engine/index'
-import { outlineSchema, type Outline } from '../../shared/schemas/outline'
+import { outlineSchema, scriptOf, type Outline } from '../../shared/schemas/outline'
 import { outlineRecordSchema, type OutlineRecord, type PuzzleRecord } from '../../shared/schemas/studio'
 import { buildOutline, editLineText, hideLine, timeline } from '../../shared/script/index'
 import { useApiSuite } from '../helpers/api'
@@ -33,6 +33,8 @@ async function copyOfFirst(): Promise<OutlineRecord> {
 }
 
 const retitled = (o: Outline, text: string): Outline => editLineText(o, o.lines[1].id, text)
+/** What the studio sends to save an edited outline: its script alone. */
+const saveBody = (version: number, o: Outline, name?: string) => ({ version, name, script: scriptOf(o) })
 
 describe('POST /api/channels/:channelId/puzzles/:puzzleId/outlines', () => {
   it('should answer 422 with a plain reason when the engine finds no first step, and store nothing', async () => {
@@ -162,11 +164,12 @@ describe('GET /api/channels/:channelId/outlines/:outlineId', () => {
     expect(queries.filter((sql) => sql.includes('outlines'))).toHaveLength(1)
     expect(queries.join('\n')).not.toMatch(/document/)
 
-    const saved = await as('editor').patch(outlinePath(copy.id), { version: 1, outline: retitled(copy.outline, 'Changed since.') })
+    const changed = retitled(copy.outline, 'Changed since.')
+    const saved = await as('editor').patch(outlinePath(copy.id), saveBody(1, changed))
     const after = await as('presenter').get(outlinePath(copy.id)).set('If-None-Match', etag)
     expect(after.status).toBe(200)
     expect(after.headers.etag).not.toBe(etag)
-    expect(after.body).toEqual(saved.body)
+    expect(after.body).toEqual({ ...saved.body, outline: changed })
   })
 
   it('should check who asks before answering 304', async () => {
@@ -180,65 +183,86 @@ describe('PATCH /api/channels/:channelId/outlines/:outlineId', () => {
   it('should answer 400, not a database error, for a line estimate beyond an hour', async () => {
     const copy = await copyOfFirst()
     const lines = copy.outline.lines.map((l, i) => (i === 1 ? { ...l, estMs: 3_000_000_000 } : l))
-    const res = await as('editor').patch(outlinePath(copy.id), { version: copy.version, outline: { ...copy.outline, lines } })
+    const res = await as('editor').patch(outlinePath(copy.id), saveBody(copy.version, { ...copy.outline, lines }))
     expect(res.status).toBe(400)
-    expect(res.body.message).toBe('body.outline.lines.1.estMs: a line can be at most an hour long')
+    expect(res.body.message).toBe('body.script.lines.1.estMs: a line can be at most an hour long')
   })
 
-  it('should save edited lines and work out the total time again', async () => {
+  it('should save edited lines, work out the total time again and answer the summary without the document', async () => {
     const copy = await copyOfFirst()
     const edited = hideLine(retitled(copy.outline, 'A shorter line.'), copy.outline.lines[2].id)
-    const res = await as('editor').patch(outlinePath(copy.id), { version: 1, name: 'Tight cut', outline: edited })
+    const res = await as('editor').patch(outlinePath(copy.id), saveBody(1, edited, 'Tight cut'))
     expect(res.status).toBe(200)
-    expect(res.body).toMatchObject({ id: copy.id, name: 'Tight cut', version: 2, totalMs: Math.round(timeline(edited).totalMs) })
+    expect(res.body).toMatchObject({ id: copy.id, name: 'Tight cut', version: 2, stepCount: copy.stepCount, totalMs: Math.round(timeline(edited).totalMs) })
+    expect(res.body).not.toHaveProperty('outline')
     expect(res.body.totalMs).toBeLessThan(copy.totalMs)
-    expect(res.body.outline.lines[1]).toMatchObject({ text: 'A shorter line.', edited: true })
-    expect((await as('owner').get(outlinePath(copy.id))).body).toEqual(res.body)
+    expect((await as('owner').get(outlinePath(copy.id))).body).toEqual({ ...res.body, outline: edited })
   })
 
-  it('should accept the document back unchanged', async () => {
+  it('should accept the script back unchanged', async () => {
     const copy = await copyOfFirst()
-    const res = await as('editor').patch(outlinePath(copy.id), { version: 1, outline: copy.outline })
+    const res = await as('editor').patch(outlinePath(copy.id), saveBody(1, copy.outline))
     expect(res.status).toBe(200)
-    expect(res.body.outline).toEqual(copy.outline)
+    expect((await as('editor').get(outlinePath(copy.id))).body.outline).toEqual(copy.outline)
+  })
+
+  it('should drop a target length the script no longer has', async () => {
+    const copy = await copyOfFirst()
+    const targeted = await as('editor').patch(outlinePath(copy.id), saveBody(1, { ...copy.outline, targetMs: 600_000 }))
+    expect((await as('editor').get(outlinePath(copy.id))).body.outline.targetMs).toBe(600_000)
+    await as('editor').patch(outlinePath(copy.id), saveBody(targeted.body.version, copy.outline))
+    expect((await as('editor').get(outlinePath(copy.id))).body.outline).toEqual(copy.outline)
   })
 
   it('should keep stored steps byte for byte, fields the schema doesn’t know included, when lines are saved', async () => {
     const copy = await copyOfFirst()
-    // as if an engine had added fields after the outline was made: the step schema keeps unknown fields of
-    // a step but drops them inside its parts, so the second can't come back in a save
+    // as if an engine had added fields after the outline was made: a save never sends steps, so they must survive untouched
     await api.db.raw(`update outlines set document = jsonb_set(jsonb_set(document, '{steps,0,note}', '"kept"'), '{steps,0,reason,note}', '"kept too"') where id = ?`, [copy.id])
     const read: OutlineRecord = (await as('editor').get(outlinePath(copy.id))).body
-    const res = await as('editor').patch(outlinePath(copy.id), { version: 1, outline: retitled(read.outline, 'Edited around the notes.') })
+    const res = await as('editor').patch(outlinePath(copy.id), saveBody(1, retitled(read.outline, 'Edited around the notes.')))
     expect(res.status).toBe(200)
     const [stored] = (await api.db.raw(`select document #>> '{steps,0,note}' as note, document #>> '{steps,0,reason,note}' as inner, document #>> '{lines,1,text}' as text from outlines where id = ?`, [copy.id])).rows
     expect(stored).toEqual({ note: 'kept', inner: 'kept too', text: 'Edited around the notes.' })
-    expect((await as('editor').get(outlinePath(copy.id))).body).toEqual(res.body)
   })
 
-  it('should answer 400 when the engine steps were changed', async () => {
+  it('should leave the engine steps, puzzle and status as stored when a script carries them along', async () => {
     const copy = await copyOfFirst()
     const steps = copy.outline.steps.map((s, i) => (i === 0 ? { ...s, difficulty: s.difficulty + 1 } : s))
-    const res = await as('owner').patch(outlinePath(copy.id), { version: 1, outline: { ...copy.outline, steps } })
+    const puzzle = { ...copy.outline.puzzle, thermometers: copy.outline.puzzle.thermometers.slice(1) }
+    const res = await as('owner').patch(outlinePath(copy.id), { version: 1, script: { ...copy.outline, steps, puzzle, status: 'stuck', title: 'Renamed' } })
+    expect(res.status).toBe(200)
+    expect((await as('owner').get(outlinePath(copy.id))).body.outline).toEqual(copy.outline)
+  })
+
+  it('should refuse the old body that sent the whole outline, with a message naming the script', async () => {
+    const copy = await copyOfFirst()
+    const res = await as('owner').patch(outlinePath(copy.id), { version: 1, outline: copy.outline })
     expect(res.status).toBe(400)
-    expect(res.body).toMatchObject({ code: 'steps-changed', message: "The engine steps of an outline can't be changed; edit the lines instead" })
+    expect(res.body.message).toMatch(/^body\.script: /)
+  })
+
+  it.each([
+    ['lose their last step line', (lines: Outline['lines']) => lines.filter((l, i) => !(l.kind === 'step' && i === lines.length - 2))],
+    ['cover a step the outline lacks', (lines: Outline['lines']) => {
+      const last = lines[lines.length - 2]
+      return lines.map((l) => (l === last ? { ...l, steps: [...l.steps, l.steps[l.steps.length - 1] + 1] } : l))
+    }],
+  ])('should answer 400 naming the stored step count when the lines %s', async (_case, change) => {
+    const copy = await copyOfFirst()
+    const lines = change(copy.outline.lines)
+    const covered = lines.reduce((n, l) => n + l.steps.length, 0)
+    const res = await as('owner').patch(outlinePath(copy.id), saveBody(1, { ...copy.outline, lines }))
+    expect(res.status).toBe(400)
+    expect(res.body).toMatchObject({ code: 'invalid-input', message: `body.script.lines: the lines cover ${covered} of ${copy.stepCount} steps` })
     expect((await as('owner').get(outlinePath(copy.id))).body).toEqual(copy)
   })
 
-  it('should answer 400 when the puzzle inside the outline was changed', async () => {
-    const copy = await copyOfFirst()
-    const puzzle = { ...copy.outline.puzzle, thermometers: copy.outline.puzzle.thermometers.slice(1) }
-    const res = await as('owner').patch(outlinePath(copy.id), { version: 1, outline: { ...copy.outline, puzzle } })
-    expect(res.status).toBe(400)
-    expect(res.body.code).toBe('puzzle-changed')
-  })
-
-  it('should answer 400 for a document whose lines no longer cover the steps', async () => {
+  it('should answer 400 for lines out of step order before reading anything', async () => {
     const copy = await copyOfFirst()
     const lines = copy.outline.lines.filter((_, i) => i !== 1)
-    const res = await as('owner').patch(outlinePath(copy.id), { version: 1, outline: { ...copy.outline, lines } })
+    const res = await as('owner').patch(outlinePath(copy.id), saveBody(1, { ...copy.outline, lines }))
     expect(res.status).toBe(400)
-    expect(res.body.message).toMatch(/^body\.outline: /)
+    expect(res.body.message).toMatch(/^body\.script: line \d+ covers step/)
   })
 
   it('should answer 409 with the current copy to the second of two people who read the same version, losing nothing', async () => {
@@ -247,21 +271,21 @@ describe('PATCH /api/channels/:channelId/outlines/:outlineId', () => {
     const readByPresenter: OutlineRecord = (await as('presenter').get(outlinePath(copy.id))).body
     expect([readByEditor.version, readByPresenter.version]).toEqual([1, 1])
 
-    const firstSave = await as('editor').patch(outlinePath(copy.id), { version: 1, outline: retitled(readByEditor.outline, 'The editor was here.') })
+    const byEditor = retitled(readByEditor.outline, 'The editor was here.')
+    const firstSave = await as('editor').patch(outlinePath(copy.id), saveBody(1, byEditor))
     expect(firstSave.status).toBe(200)
-    const secondSave = await as('presenter').patch(outlinePath(copy.id), { version: 1, outline: retitled(readByPresenter.outline, 'The presenter was here.') })
+    const secondSave = await as('presenter').patch(outlinePath(copy.id), saveBody(1, retitled(readByPresenter.outline, 'The presenter was here.')))
     expect(secondSave.status).toBe(409)
     expect(secondSave.body).toMatchObject({ code: 'stale', message: expect.stringMatching(/^Someone saved a newer version/) })
-    expect(secondSave.body.details.current).toEqual(firstSave.body)
-    expect((await as('owner').get(outlinePath(copy.id))).body).toEqual(firstSave.body)
+    expect(secondSave.body.details.current).toEqual({ ...firstSave.body, outline: byEditor })
+    expect((await as('owner').get(outlinePath(copy.id))).body).toEqual(secondSave.body.details.current)
 
-    const retry = await as('presenter').patch(outlinePath(copy.id), {
-      version: secondSave.body.details.current.version,
-      outline: editLineText(secondSave.body.details.current.outline, readByPresenter.outline.lines[2].id, 'The presenter was here.'),
-    })
+    const current: OutlineRecord = secondSave.body.details.current
+    const retry = await as('presenter').patch(outlinePath(copy.id), saveBody(current.version, editLineText(current.outline, readByPresenter.outline.lines[2].id, 'The presenter was here.')))
     expect(retry.status).toBe(200)
-    expect(retry.body.outline.lines[1].text).toBe('The editor was here.')
-    expect(retry.body.outline.lines[2].text).toBe('The presenter was here.')
+    const stored: OutlineRecord = (await as('owner').get(outlinePath(copy.id))).body
+    expect(stored.outline.lines[1].text).toBe('The editor was here.')
+    expect(stored.outline.lines[2].text).toBe('The presenter was here.')
   })
 })
 
@@ -341,7 +365,7 @@ describe('outlines of another channel', () => {
       await as('owner').get(outlinesOf(puzzle.id)),
       await as('owner').post(outlinesOf(puzzle.id), {}),
       await as('owner').get(outlinePath(foreign.id)),
-      await as('owner').patch(outlinePath(foreign.id), { version: 1, outline: foreign.outline }),
+      await as('owner').patch(outlinePath(foreign.id), saveBody(1, foreign.outline)),
       await as('owner').post(`${outlinePath(foreign.id)}/duplicate`, {}),
       await as('owner').delete(outlinePath(foreign.id)),
     ]

@@ -12,6 +12,7 @@ import { issueToken } from '../../server/auth/tokens'
 import type { Access, EndpointInfo } from '../../server/routes/endpoint'
 import { DEMO_PASSWORD } from '../../seeds/01_demo_channel'
 import { rolesFor } from '../../shared/permissions'
+import { scriptOf } from '../../shared/schemas/outline'
 import type { OutlineRecord, PuzzleRecord } from '../../shared/schemas/studio'
 import { ACTORS, demoEmail, registeredEndpoints, useApiSuite, type Actor } from '../helpers/api'
 import { testConfig } from '../helpers/db'
@@ -62,7 +63,7 @@ const ENDPOINTS: Record<string, Row> = {
   'GET /api/channels/:channelId/puzzles/:puzzleId/outlines': { access: 'outline.read' },
   'POST /api/channels/:channelId/puzzles/:puzzleId/outlines': { access: 'outline.create', body: () => ({ name: 'Another take' }) },
   'GET /api/channels/:channelId/outlines/:outlineId': { access: 'outline.read' },
-  'PATCH /api/channels/:channelId/outlines/:outlineId': { access: 'outline.edit', body: () => ({ version: outline.version, outline: outline.outline }) },
+  'PATCH /api/channels/:channelId/outlines/:outlineId': { access: 'outline.edit', body: () => ({ version: outline.version, script: scriptOf(outline.outline) }) },
   'GET /api/channels/:channelId/outlines/:outlineId/cue-sheet.pdf': { access: 'outline.read' },
   'POST /api/channels/:channelId/outlines/:outlineId/duplicate': { access: 'outline.create' },
   'DELETE /api/channels/:channelId/outlines/:outlineId': { access: 'outline.create' },

@@ -6,7 +6,7 @@ import fc from 'fast-check'
 import { describe, expect, test } from 'vitest'
 import { z, type ZodType } from 'zod'
 import { signInSchema } from '../../../shared/schemas/auth'
-import { LINE_TEXT_MAX, outlineEditSchema, outlineSchema, type Outline } from '../../../shared/schemas/outline'
+import { LINE_TEXT_MAX, outlineEditSchema, outlineSchema, scriptOf, scriptProblems, type Outline } from '../../../shared/schemas/outline'
 import { puzzleFileShape } from '../../../shared/schemas/puzzle'
 import { outlineCreateSchema, outlineSaveSchema, puzzleDraftSchema, puzzleUpdateSchema } from '../../../shared/schemas/studio'
 import { draftOf } from '../../helpers/studio'
@@ -22,7 +22,9 @@ const BODIES: { name: string; schema: ZodType; body: () => unknown }[] = [
   { name: 'puzzle update', schema: puzzleUpdateSchema, body: () => ({ ...draft, version: 3 }) },
   { name: 'puzzle file', schema: puzzleFileShape, body: () => draftOf('GT13', { author: 'Pat Setter' }) },
   { name: 'new take', schema: outlineCreateSchema, body: () => ({ name: 'Take 2', pace: 170, names: 'coords' }) },
-  { name: 'outline save', schema: outlineSaveSchema, body: () => ({ version: 2, name: 'Take 1', outline: outline() }) },
+  { name: 'outline save', schema: outlineSaveSchema, body: () => ({ version: 2, name: 'Take 1', script: scriptOf(outline()) }) },
+  // no request sends a whole outline any more, but a new take answers one and the studio keeps it in the browser
+  { name: 'outline document', schema: outlineSchema, body: outline },
   { name: 'line edit', schema: outlineEditSchema, body: () => ({ op: 'editLineText', lineId: 3, text: 'Look at box five.' }) },
   { name: 'chapter edit', schema: outlineEditSchema, body: () => ({ op: 'renameChapter', lineId: 1, title: 'Opening' }) },
 ]
@@ -53,10 +55,10 @@ describe('request schemas', () => {
     { body: 'puzzle draft', path: 'notes', label: 'notes' },
     { body: 'puzzle draft', path: 'link', label: 'link' },
     { body: 'new take', path: 'name', label: 'name' },
-    { body: 'outline save', path: 'outline.lines.1.text', label: 'line text' },
-    { body: 'outline save', path: 'outline.chapters.0.title', label: 'chapter title' },
-    { body: 'outline save', path: 'outline.title', label: 'title' },
-    { body: 'outline save', path: 'outline.steps.0.text', label: 'step text' },
+    { body: 'outline save', path: 'script.lines.1.text', label: 'line text' },
+    { body: 'outline save', path: 'script.chapters.0.title', label: 'chapter title' },
+    { body: 'outline document', path: 'title', label: 'title' },
+    { body: 'outline document', path: 'steps.0.text', label: 'step text' },
   ])('$body: a NUL in $path is refused with "$label can\'t contain a NUL character"', ({ body: name, path, label }) => {
     const { schema, body } = BODIES.find((b) => b.name === name)!
     const keys = path.split('.').map((k) => (/^\d+$/.test(k) ? Number(k) : k))
@@ -64,6 +66,28 @@ describe('request schemas', () => {
     const hostile = label === 'link' ? `${value}/a\u0000b` : `a\u0000${value}`
     const result = schema.safeParse(replaceAt(body(), keys, hostile))
     expect(result.error?.issues.map((i) => i.message)).toContain(`${label} can't contain a NUL character`)
+  })
+})
+
+describe('outline save', () => {
+  test('outlineSaveSchema(a script whose lines skip a step) => refused without the steps', () => {
+    const script = scriptOf(outline())
+    const lines = script.lines.map((l, i) => (i === 2 ? { ...l, steps: l.steps.map((s) => s + 1) } : l))
+    const messages = outlineSaveSchema.safeParse({ version: 1, script: { ...script, lines } }).error?.issues.map((i) => i.message)
+    expect(messages?.[0]).toBe(`line ${lines[2].id} covers step ${lines[2].steps[0] + 1}, expected step ${lines[2].steps[0]}`)
+  })
+
+  test('outlineSaveSchema(a script carrying steps and a puzzle) => parsed to the script alone', () => {
+    const whole = outline()
+    const parsed = outlineSaveSchema.parse({ version: 1, script: whole })
+    expect(Object.keys(parsed.script).sort()).toEqual(Object.keys(scriptOf(whole)).sort())
+    expect(parsed.script).not.toHaveProperty('steps')
+  })
+
+  test('scriptProblems(script, a step count) => the one missing coverage when the lines stop early', () => {
+    const whole = outline()
+    expect(scriptProblems(whole, whole.steps.length)).toEqual([])
+    expect(scriptProblems(whole, whole.steps.length + 1)).toEqual([`the lines cover ${whole.steps.length} of ${whole.steps.length + 1} steps`])
   })
 })
 
