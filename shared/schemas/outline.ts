@@ -8,9 +8,6 @@ import { puzzleAuthorSchema, puzzleTitleSchema } from './puzzle'
 import { cellSchema, stepSchema } from './step'
 import { text, webAddress } from './text'
 
-/** Offered here too: whoever checks outlines finds the check of the steps they hold beside it. */
-export { stepSchema }
-
 export const namingStyleSchema = z.enum(['words', 'coords'])
 export type NamingStyle = z.infer<typeof namingStyleSchema>
 
