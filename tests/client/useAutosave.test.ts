@@ -41,7 +41,7 @@ const savedSummary = (version: number): OutlineSummary => ({
 })
 
 // The Studio's wiring of saving: the editor's outline, the real API module, the save status and the conflict dialog.
-function renderAutosave(record: OutlineRecord, tuning: Pick<AutosaveOptions, 'retryMs' | 'maxRetryMs'> = {}) {
+function renderAutosave(record: OutlineRecord, tuning: Pick<AutosaveOptions, 'retryMs' | 'maxRetryMs' | 'onSaved'> = {}) {
   let editor!: OutlineEditor
   let autosave!: Autosave
   const Harness = defineComponent({
@@ -136,6 +136,17 @@ describe('useAutosave', () => {
   })
   afterEach(() => {
     vi.useRealTimers()
+  })
+
+  it('should hand on the record the server now holds: the summary it answered with the outline that was sent', async () => {
+    acceptSaves()
+    const onSaved = vi.fn()
+    const { editor } = renderAutosave(recordFor(doc, { version: 3 }), { onSaved })
+    editor.apply({ op: 'hideLine', lineId: doc.lines[3].id })
+    await vi.advanceTimersByTimeAsync(1100)
+    await flushPromises()
+    expect(onSaved).toHaveBeenCalledExactlyOnceWith({ ...savedSummary(4), outline: editor.outline.value })
+    expect(onSaved.mock.calls[0][0].outline.lines[3].hidden).toBe(true)
   })
 
   it('should save about a second after the last edit, sending the version it read', async () => {
