@@ -35,11 +35,18 @@ const READ_METHODS = new Set(['GET', 'HEAD', 'OPTIONS'])
 export const databaseUnavailable = (request: { method: string; path: string }) =>
   new HttpError(503, 'database-unavailable', unavailableMessage(request))
 
-// Said to a person: a read, a sign-in and a change each lose something different when the database is away.
+// The two saves a browser keeps and sends again by itself: the studio's autosave and the puzzle screen's save.
+const KEPT_SAVES = [/^PATCH \/api\/channels\/\d+\/outlines\/\d+$/, /^PUT \/api\/channels\/\d+\/puzzles\/\d+$/]
+
+// Said to a person: a read, a sign-in, a kept save and any other change each lose something different.
 function unavailableMessage({ method, path }: { method: string; path: string }): string {
   if (READ_METHODS.has(method)) return 'The database is unavailable, so this could not be loaded. Try again in a moment.'
-  if (path.startsWith('/api/auth/')) return "The database is unavailable, so signing in can't be checked right now. Try again in a moment."
-  return "The database is unavailable; this change was not saved — it is kept in this browser and will be sent when it's back."
+  const route = `${method} ${path.split('?')[0]}`
+  if (route === 'POST /api/auth/sign-in') return "The database is unavailable, so signing in can't be checked right now. Try again in a moment."
+  if (KEPT_SAVES.some((pattern) => pattern.test(route))) {
+    return "The database is unavailable; this change was not saved — it is kept in this browser and will be sent when it's back."
+  }
+  return "The database is unavailable, so this wasn't done. Try again in a moment."
 }
 
 /** An unexpected failure: nothing is known about what was stored, so a change is not claimed safe. */

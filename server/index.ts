@@ -37,9 +37,16 @@ const server = app.listen(config.http.port, config.http.host, (error?: Error) =>
   })
 })
 
+// requests in flight (a save on its way) get this long to finish before the pools and the database close
+const DRAIN_MS = 10_000
+
 async function shutdown(signal: string) {
   logger.info({ signal }, 'shutting down')
-  server.close()
+  await new Promise<void>((resolve) => {
+    server.close(() => resolve())
+    server.closeIdleConnections()
+    setTimeout(resolve, DRAIN_MS).unref()
+  })
   await engine.destroy()
   await db.destroy()
   process.exit(0)

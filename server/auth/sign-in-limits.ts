@@ -28,13 +28,16 @@ const MAX_KEYS = 20_000
 export function signInGuards(settings: SignInLimitSettings): RequestHandler[] {
   const perAddress = limiter({
     limit: settings.signInAttemptsPerAddressPer15Min,
-    // only failures count: an office behind one address signs in many people, a sprayer mostly fails
-    skipSuccessfulRequests: true,
+    // only wrong passwords count: an office behind one address signs in many people, a sprayer mostly
+    // fails; a database outage (503) or another limit's 429 must not lock that office out afterwards
+    counts: (status) => status === 401,
     key: (req) => addressOf(req),
   })
   // per address and e-mail, so one guessed account can't lock out a whole office behind one address
   const perAccount = limiter({
     limit: settings.signInAttemptsPer15Min,
+    // every try counts, except those the server failed to answer (the database away)
+    counts: (status) => status < 500,
     key: (req) => `${addressOf(req)}|${(req.body as SignInInput).email.toLowerCase()}`,
   })
   return [checkedBody, perAddress, perAccount]
@@ -50,14 +53,18 @@ const addressOf = (req: Request) => ipKeyGenerator(req.ip ?? '')
 interface LimiterSpec {
   limit: number
   key: (req: Request) => string
-  skipSuccessfulRequests?: boolean
+  /** whether an answered try with this status counts against the limit */
+  counts: (status: number) => boolean
 }
 
-function limiter({ limit, key, skipSuccessfulRequests = false }: LimiterSpec): RequestHandler {
+function limiter({ limit, key, counts }: LimiterSpec): RequestHandler {
   return rateLimit({
     windowMs: WINDOW_MS,
     limit,
-    skipSuccessfulRequests,
+    // the limiter counts every try up front and takes back those it is told were "successful": here, the
+    // tries that don't count
+    skipSuccessfulRequests: true,
+    requestWasSuccessful: (_req, res) => !counts(res.statusCode),
     keyGenerator: key,
     store: new BoundedMemoryStore(MAX_KEYS),
     standardHeaders: 'draft-8',

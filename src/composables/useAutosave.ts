@@ -17,6 +17,8 @@ type RetryReason = 'database' | 'offline' | 'server'
 
 export interface AutosaveOptions {
   outlineId: MaybeRefOrGetter<number>
+  /** Whose edits these are: a local copy belongs to the person who made it, never to the next one to sign in on this browser. */
+  userId: MaybeRefOrGetter<number>
   /** The outline as it is now in the editor; every new snapshot counts as a change. */
   outline: Readonly<Ref<Outline | null>>
   /** PATCH with the version read; resolves to the saved summary, rejects with a StaleError<OutlineRecord> when stale (src/api/outlines.ts). */
@@ -46,8 +48,8 @@ const localCopySchema = z.object({
 })
 export type LocalCopy = z.infer<typeof localCopySchema>
 
-export function localCopyKey(outlineId: number): string {
-  return `gridcue.studio.outline.${outlineId}`
+export function localCopyKey(outlineId: number, userId: number): string {
+  return `gridcue.studio.user.${userId}.outline.${outlineId}`
 }
 
 /**
@@ -82,7 +84,7 @@ export function useAutosave(options: AutosaveOptions) {
   /** the screen is gone: a failed last save is not retried in the background */
   let disposed = false
 
-  const key = computed(() => localCopyKey(toValue(options.outlineId)))
+  const key = computed(() => localCopyKey(toValue(options.outlineId), toValue(options.userId)))
   const label = computed(() => (status.value === 'retrying' ? RETRY_LABELS[retryReason.value] : STATUS_LABELS[status.value]))
 
   /**

@@ -168,7 +168,7 @@ describe('StudioView', { timeout: 20_000 }, () => {
   it('should put back unsaved edits kept in this browser and offer to discard them', async () => {
     const doc = outlineFor('PE01')
     const mine = { ...doc, lines: doc.lines.map((l, i) => (i === 1 ? { ...l, text: 'Kept from before the reload.', edited: true } : l)) }
-    localStorage.setItem(localCopyKey(31), JSON.stringify({ baseVersion: 3, savedAt: '2025-03-01T10:05:00.000Z', outline: mine }))
+    localStorage.setItem(localCopyKey(31, sessionFixture().user.id), JSON.stringify({ baseVersion: 3, savedAt: '2025-03-01T10:05:00.000Z', outline: mine }))
     serve('presenter', recordFor(doc))
     await openStudio(PATH)
     expect(scriptLine(2)).toHaveValue('Kept from before the reload.')
@@ -179,6 +179,18 @@ describe('StudioView', { timeout: 20_000 }, () => {
     expect(scriptLine(2)).toHaveValue(doc.lines[1].text)
     expect(saveStatus()).toHaveTextContent(/^Saved$/)
     expect(screen.queryByRole('button', { name: 'Discard them' })).not.toBeInTheDocument()
+  })
+
+  it("should never put back another person's unsaved edits from this browser", async () => {
+    const doc = outlineFor('PE01')
+    const theirs = { ...doc, lines: doc.lines.map((l, i) => (i === 1 ? { ...l, text: 'Left here by someone else.', edited: true } : l)) }
+    const someoneElse = sessionFixture().user.id + 1
+    localStorage.setItem(localCopyKey(31, someoneElse), JSON.stringify({ baseVersion: 3, savedAt: '2025-03-01T10:05:00.000Z', outline: theirs }))
+    serve('presenter', recordFor(doc))
+    await openStudio(PATH)
+    expect(scriptLine(2)).toHaveValue(doc.lines[1].text)
+    expect(saveStatus()).toHaveTextContent(/^Saved$/)
+    expect(screen.queryByText('were kept in this browser and have been put back', { exact: false })).not.toBeInTheDocument()
   })
 
   it('should switch between the script and the step list with tabs, by pointer and by arrow keys, and remember the choice', async () => {

@@ -21,7 +21,8 @@ import './render'
 const CHANNEL = 1
 const OUTLINE_ID = 31
 const OUTLINE_URL = apiPath(`/channels/${CHANNEL}/outlines/${OUTLINE_ID}`)
-const KEY = localCopyKey(OUTLINE_ID)
+const USER_ID = 7
+const KEY = localCopyKey(OUTLINE_ID, USER_ID)
 
 interface SentSave {
   version: number
@@ -49,6 +50,7 @@ function renderAutosave(record: OutlineRecord, tuning: Pick<AutosaveOptions, 're
       editor = useOutlineEditor()
       autosave = useAutosave({
         outlineId: OUTLINE_ID,
+        userId: USER_ID,
         outline: editor.outline,
         save: (version, outline) => saveOutline(CHANNEL, OUTLINE_ID, { version, script: scriptOf(outline) }),
         replace: editor.replace,

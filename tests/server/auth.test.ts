@@ -118,6 +118,16 @@ describe('POST /api/auth/sign-in, password spraying', () => {
     expect((await attempt('one-more@gridcue.example', 'guess')).status).toBe(429)
   })
 
+  it("should not count another limit's refusals against the address, so they can't lock the office out", async () => {
+    // per-account limit 5 (tests/helpers/db.ts); the address allows 8 wrong passwords
+    const app = appWith((c) => ({ ...c, auth: { ...c.auth, signInAttemptsPerAddressPer15Min: 8 } }))
+    const attempt = (email: string, password: string) => request(app).post('/api/auth/sign-in').send({ email, password })
+    for (let i = 0; i < 5; i++) expect((await attempt('guessed@gridcue.example', 'guess')).status).toBe(401)
+    for (let i = 0; i < 3; i++) expect((await attempt('guessed@gridcue.example', 'guess')).status).toBe(429)
+    // five wrong passwords counted, not eight: the next person behind this address still signs in
+    expect((await attempt(demoEmail('editor'), DEMO_PASSWORD)).status).toBe(200)
+  })
+
   it('should count the address the proxy passes on behind TLS, and ignore that header otherwise', async () => {
     const failFrom = (app: ReturnType<typeof appWith>, address: string, i: number) =>
       request(app).post('/api/auth/sign-in').set('X-Forwarded-For', address).send({ email: `person-${i}@gridcue.example`, password: 'guess' })

@@ -38,6 +38,7 @@ let outline: OutlineRecord
 const get = (path: string) => request(app).get(path).set('Authorization', `Bearer ${token}`)
 const patch = (path: string, body: object) => request(app).patch(path).set('Authorization', `Bearer ${token}`).send(body)
 const put = (path: string, body: object) => request(app).put(path).set('Authorization', `Bearer ${token}`).send(body)
+const post = (path: string) => request(app).post(path).set('Authorization', `Bearer ${token}`)
 const outlinePath = () => `/api/channels/${channelId}/outlines/${outline.id}`
 const puzzlePath = () => `/api/channels/${channelId}/puzzles/${puzzle.id}`
 const retitled = (o: Outline, text: string): Outline => editLineText(o, o.lines[1]!.id, text)
@@ -93,6 +94,7 @@ describe('the database stopped and started under a running app', () => {
       outlineSave: await timed(() => patch(outlinePath(), { version: outline.version, script: scriptOf(retitled(outline.outline, 'Written while the database was away.')) })),
       puzzleSave: await timed(() => put(puzzlePath(), puzzleSave('Renamed while the database was away'))),
       signIn: await timed(() => request(app).post('/api/auth/sign-in').send({ email: demoEmail('owner'), password: DEMO_PASSWORD })),
+      duplicate: await timed(() => post(`/api/channels/${channelId}/outlines/${outline.id}/duplicate`)),
       health: await timed(() => request(app).get('/api/health')),
     }
     for (const [name, { res, ms }] of Object.entries(answers)) {
@@ -105,6 +107,8 @@ describe('the database stopped and started under a running app', () => {
     expect(answers.puzzleSave.res.body.message).toBe(SAVE_NOT_STORED)
     expect(answers.read.res.body.message).toBe('The database is unavailable, so this could not be loaded. Try again in a moment.')
     // signing in changes nothing a browser keeps: it must not promise to send anything later
+    // nothing keeps a duplicate to send again: it says so rather than promising it
+    expect(answers.duplicate.res.body.message).toBe("The database is unavailable, so this wasn't done. Try again in a moment.")
     expect(answers.signIn.res.body.message).toBe("The database is unavailable, so signing in can't be checked right now. Try again in a moment.")
     expect(answers.health.res.body).toMatchObject({ status: 'degraded', database: 'down' })
   })
