@@ -151,6 +151,15 @@ export function setNames(outline: Outline, names: NamingStyle): Outline {
   return { ...next, lines: next.lines.map((l) => (l.edited ? l : withText(next, { ...l, text: renderLine(next, l, l.phrasing) }))) }
 }
 
+/**
+ * The outline with every line nobody edited said in the current narration (a fix to the wording reaches
+ * takes made before it); the same object when nothing would change, so opening a take saves nothing then.
+ */
+export function refreshNarration(outline: Outline): Outline {
+  const refreshed = setNames(outline, outline.names)
+  return refreshed.lines.some((line, i) => line.text !== outline.lines[i].text) ? refreshed : outline
+}
+
 /** Sets (or clears, with null) the length the video should come out at. */
 export function setTarget(outline: Outline, targetMs: number | null): Outline {
   if (targetMs === null) {

@@ -15,6 +15,7 @@ export {
   renameChapter,
   removeChapter,
   setPace,
+  refreshNarration,
   setNames,
   setTarget,
   alignLine,

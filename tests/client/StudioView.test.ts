@@ -181,6 +181,27 @@ describe('StudioView', { timeout: 20_000 }, () => {
     expect(screen.queryByRole('button', { name: 'Discard them' })).not.toBeInTheDocument()
   })
 
+  it('should say lines nobody edited in the current wording when a take opens, and save that', async () => {
+    const doc = outlineFor('PE01')
+    const stored = { ...doc, lines: doc.lines.map((l, i) => (i === 1 ? { ...l, text: 'Words from an older Gridcue.' } : l)) }
+    const saves: unknown[] = []
+    serve('presenter', recordFor(stored))
+    api.use(
+      http.patch(apiPath('/channels/12/outlines/31'), async ({ request }) => {
+        const body = (await request.json()) as { version: number }
+        saves.push(body)
+        const { outline: _sent, ...summary } = recordFor(stored)
+        return HttpResponse.json({ ...summary, version: body.version + 1 })
+      }),
+    )
+    vi.useFakeTimers({ shouldAdvanceTime: true })
+    await openStudio(PATH)
+    expect(scriptLine(2)).toHaveValue(doc.lines[1].text)
+    await vi.advanceTimersByTimeAsync(2000)
+    await vi.waitFor(() => expect(saves).toHaveLength(1))
+    vi.useRealTimers()
+  })
+
   it("should never put back another person's unsaved edits from this browser", async () => {
     const doc = outlineFor('PE01')
     const theirs = { ...doc, lines: doc.lines.map((l, i) => (i === 1 ? { ...l, text: 'Left here by someone else.', edited: true } : l)) }

@@ -6,7 +6,7 @@ import { readFileSync } from 'node:fs'
 import { describe, expect, test } from 'vitest'
 import { parsePuzzle, solvePath, stateAt, type Puzzle, type Step } from '../../../shared/engine/index'
 import { CELL_HOUSES, HOUSES } from '../../../shared/grid'
-import { buildOutline } from '../../../shared/script/index'
+import { buildOutline, refreshNarration } from '../../../shared/script/index'
 
 const data = JSON.parse(readFileSync(new URL('../../fixtures/classic-puzzles.json', import.meta.url), 'utf8')) as {
   puzzles: { id: string; title: string; givens: string }[]
@@ -44,5 +44,26 @@ describe.each(['PE07', 'PE43'])('Project Euler 96 grid %s', (id) => {
     const told = outline.lines.filter((l) => l.steps.length === 1 && withRuledOut.includes(l.steps[0]))
     expect(told.length).toBeGreaterThan(0)
     for (const line of told) expect(line.text).toMatch(/ruled out earlier/)
+  })
+
+  test('a take written with the old wording is said in the new one when it opens; an edited line is kept', () => {
+    const current = buildOutline(puzzle, result, { names: 'words' })
+    const told = current.lines.filter((l) => l.steps.length === 1 && withRuledOut.includes(l.steps[0]))
+    const [oldLine, editedLine] = told
+    const stored = {
+      ...current,
+      lines: current.lines.map((l) =>
+        l.id === oldLine.id
+          ? { ...l, text: l.text.replace(/ruled out earlier/, 'ruled out by the thermometer') }
+          : l.id === editedLine?.id
+            ? { ...l, text: 'Said my own way, with a thermometer.', edited: true }
+            : l,
+      ),
+    }
+    const opened = refreshNarration(stored)
+    expect(opened.lines.find((l) => l.id === oldLine.id)!.text).toBe(oldLine.text)
+    if (editedLine) expect(opened.lines.find((l) => l.id === editedLine.id)!.text).toBe('Said my own way, with a thermometer.')
+    // a take already in the current wording comes back as it was: opening it saves nothing
+    expect(refreshNarration(current)).toBe(current)
   })
 })
