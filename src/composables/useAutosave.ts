@@ -52,6 +52,11 @@ export function localCopyKey(outlineId: number, userId: number): string {
   return `gridcue.studio.user.${userId}.outline.${outlineId}`
 }
 
+/** Where a copy was kept before copies were kept per person. */
+export function unownedCopyKey(outlineId: number): string {
+  return `gridcue.studio.outline.${outlineId}`
+}
+
 /**
  * Saves the outline about a second after the last edit, with the version it was read at. Until the
  * server has it, the pending outline waits in localStorage. A save that fails for a passing reason
@@ -236,6 +241,7 @@ export function useAutosave(options: AutosaveOptions) {
   }
 
   function readLocal(): LocalCopy | null {
+    adoptUnownedCopy()
     try {
       const raw = localStorage.getItem(key.value)
       if (raw === null) return null
@@ -246,6 +252,20 @@ export function useAutosave(options: AutosaveOptions) {
     }
     removeLocal()
     return null
+  }
+
+  // Copies kept before they were kept per person have no owner: the first person to open the take gets it,
+  // as everyone did then, rather than the edits being dropped.
+  function adoptUnownedCopy(): void {
+    const unowned = unownedCopyKey(toValue(options.outlineId))
+    try {
+      const raw = localStorage.getItem(unowned)
+      if (raw === null) return
+      if (localStorage.getItem(key.value) === null) localStorage.setItem(key.value, raw)
+      localStorage.removeItem(unowned)
+    } catch {
+      // Storage unavailable: there is nothing to adopt.
+    }
   }
 
   function writeLocal(outline: Outline): void {

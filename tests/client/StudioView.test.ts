@@ -5,7 +5,7 @@ import { TECHNIQUES } from '@shared/engine'
 import type { Outline } from '@shared/script'
 import type { OutlineRecord } from '@shared/schemas/studio'
 import App from '@/App.vue'
-import { localCopyKey } from '@/composables/useAutosave'
+import { localCopyKey, unownedCopyKey } from '@/composables/useAutosave'
 import { STUDIO_PREFS_KEY } from '@/stores/studio'
 import { outlineFor, recordFor } from '../helpers/studio-outline'
 import { api, apiPath, http, HttpResponse } from './msw'
@@ -200,6 +200,17 @@ describe('StudioView', { timeout: 20_000 }, () => {
     await vi.advanceTimersByTimeAsync(2000)
     await vi.waitFor(() => expect(saves).toHaveLength(1))
     vi.useRealTimers()
+  })
+
+  it('should put back edits this browser kept before copies were kept per person', async () => {
+    const doc = outlineFor('PE01')
+    const mine = { ...doc, lines: doc.lines.map((l, i) => (i === 1 ? { ...l, text: 'Kept before the update.', edited: true } : l)) }
+    localStorage.setItem(unownedCopyKey(31), JSON.stringify({ baseVersion: 3, savedAt: '2025-03-01T10:05:00.000Z', outline: mine }))
+    serve('presenter', recordFor(doc))
+    await openStudio(PATH)
+    expect(scriptLine(2)).toHaveValue('Kept before the update.')
+    expect(localStorage.getItem(unownedCopyKey(31))).toBeNull()
+    expect(localStorage.getItem(localCopyKey(31, sessionFixture().user.id))).not.toBeNull()
   })
 
   it("should never put back another person's unsaved edits from this browser", async () => {
