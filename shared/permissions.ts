@@ -29,6 +29,8 @@ export const PERMISSIONS = {
   'outline.create': makers,
   /** edit a take's script, timing and chapters */
   'outline.edit': studioTeam,
+  /** play an unpublished recording, its waveform and its alignment runs (recordings show faces and voices: not for viewers) */
+  'recording.read': studioTeam,
   /** upload recordings and align a take to them */
   'recording.edit': postProduction,
   /** publish and unpublish episodes */
