@@ -1,13 +1,31 @@
 import type { Db } from './knex'
-import type { OutlineScript } from '../../shared/schemas/outline'
+import { SCRIPT_KEYS, scriptOf, type Outline, type OutlineBase, type OutlineScript } from '../../shared/schemas/outline'
 import type { OutlineRow } from './tables'
 
-export type OutlineFields = Pick<OutlineRow, 'name' | 'status' | 'step_count' | 'total_ms' | 'document'>
-export type OutlineSummaryRow = Omit<OutlineRow, 'document'>
+/** What a new outline row holds: the whole document goes in, split into its base and its script. */
+export type OutlineFields = Pick<OutlineRow, 'name' | 'status' | 'step_count' | 'total_ms'> & { document: Outline }
+export type OutlineSummaryRow = Omit<OutlineRow, 'document' | 'script'>
 
 const SUMMARY_COLUMNS = ['id', 'puzzle_id', 'name', 'status', 'step_count', 'total_ms', 'version', 'created_by', 'created_at', 'updated_at'] as const
 
-const toColumns = (db: Db, fields: OutlineFields) => ({ ...fields, document: db.raw('?::jsonb', [JSON.stringify(fields.document)]) })
+const toColumns = (db: Db, { document, ...fields }: OutlineFields) => ({
+  ...fields,
+  document: db.raw('?::jsonb', [JSON.stringify(baseOf(document))]),
+  script: db.raw('?::jsonb', [JSON.stringify(scriptOf(document))]),
+})
+
+function baseOf(outline: Outline): OutlineBase {
+  const base: Partial<Outline> = { ...outline }
+  for (const key of SCRIPT_KEYS) delete base[key]
+  return base as OutlineBase
+}
+
+/** The whole outline a row holds. */
+export const outlineOf = (row: Pick<OutlineRow, 'document' | 'script'>): Outline => ({ ...row.document, ...row.script })
+
+// The whole outline as JSON text from its two columns as PostgreSQL prints them: two objects with no key in common
+// joined into one, so a 130 KB document is neither parsed nor merged by PostgreSQL's jsonb operators (which walk every step).
+const OUTLINE_TEXT_SQL = "left(outlines.document::text, -1) || ', ' || substr(outlines.script::text, 2)"
 
 /** Summaries without the documents, oldest first (the order the takes were made). */
 export function listOutlines(db: Db, puzzleId: number): Promise<OutlineSummaryRow[]> {
@@ -36,7 +54,7 @@ export function findOutlineStamp(db: Db, channelId: number, outlineId: number): 
     .first('outlines.version', 'outlines.updated_at')
 }
 
-/** An outline whose document is the JSON text PostgreSQL prints, not parsed, for whoever only passes it on. */
+/** An outline whose whole document is JSON text, not parsed, for whoever only passes it on. */
 export type OutlineTextRow = OutlineSummaryRow & { document: string }
 
 /** An outline with its document as JSON text, only when its puzzle belongs to the channel. */
@@ -45,7 +63,7 @@ export function findOutlineText(db: Db, channelId: number, outlineId: number): P
     .join('puzzles', 'puzzles.id', 'outlines.puzzle_id')
     .where('outlines.id', outlineId)
     .andWhere('puzzles.channel_id', channelId)
-    .first<OutlineTextRow | undefined>(...SUMMARY_COLUMNS.map((c) => `outlines.${c}`), db.raw('outlines.document::text as document'))
+    .first<OutlineTextRow | undefined>(...SUMMARY_COLUMNS.map((c) => `outlines.${c}`), db.raw(`${OUTLINE_TEXT_SQL} as document`))
 }
 
 /** What a cue sheet needs: the take's name, the puzzle's title and the document as JSON text, left unparsed. */
@@ -61,7 +79,7 @@ export function findOutlineForExport(db: Db, channelId: number, outlineId: numbe
     .join('puzzles', 'puzzles.id', 'outlines.puzzle_id')
     .where('outlines.id', outlineId)
     .andWhere('puzzles.channel_id', channelId)
-    .first<OutlineExportRow | undefined>('outlines.name', db.raw("outlines.document ->> 'title' as title"), db.raw('outlines.document::text as document'))
+    .first<OutlineExportRow | undefined>('outlines.name', db.raw("outlines.document ->> 'title' as title"), db.raw(`${OUTLINE_TEXT_SQL} as document`))
 }
 
 export async function insertOutline(db: Db, puzzleId: number, createdBy: number | null, fields: OutlineFields): Promise<OutlineRow> {
@@ -81,12 +99,9 @@ export interface ScriptSave {
   script: OutlineScript
 }
 
-// the document's keys a save writes; removed first, so a key the script no longer has (a cleared target) goes too
-const SCRIPT_KEYS_SQL = "array['pace', 'names', 'targetMs', 'lines', 'chapters']"
-
 /**
  * Writes a script over `version` in one statement, only when its lines cover the stored number of steps.
- * The stored document's engine part is neither sent nor read: PostgreSQL merges the script into it.
+ * The outline's base (steps, puzzle) is neither sent nor read nor rewritten: the script has a column of its own.
  * Undefined when nothing was written: the outline is missing or in another channel, someone saved a
  * newer version first, or the lines don't fit the steps.
  */
@@ -95,7 +110,7 @@ export async function saveScript(db: Db, channelId: number, outlineId: number, v
     .where({ id: outlineId, version, step_count: save.step_count })
     .whereIn('puzzle_id', db('puzzles').select('id').where({ channel_id: channelId }))
     .update({
-      document: db.raw(`(document - ${SCRIPT_KEYS_SQL}::text[]) || ?::jsonb`, [JSON.stringify(save.script)]),
+      script: db.raw('?::jsonb', [JSON.stringify(save.script)]),
       ...(save.name === undefined ? {} : { name: save.name }),
       total_ms: save.total_ms,
       version: version + 1,

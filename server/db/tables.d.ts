@@ -1,6 +1,6 @@
 import 'knex/types/tables'
 import type { Role } from '../../shared/schemas/auth'
-import type { Outline } from '../../shared/schemas/outline'
+import type { Outline, OutlineBase, OutlineScript } from '../../shared/schemas/outline'
 import type { PuzzleCheck, PuzzleRecord } from '../../shared/schemas/studio'
 
 export interface UserRow {
@@ -58,8 +58,10 @@ export interface OutlineRow {
   status: Outline['status']
   step_count: number
   total_ms: number
-  /** the whole Outline document */
-  document: Outline
+  /** the outline without its script: what the engine and the puzzle gave */
+  document: OutlineBase
+  /** what people edit (pace, names, target, lines, chapters), in a column of its own so a save writes only this */
+  script: OutlineScript
   version: number
   created_by: number | null
   created_at: Date

@@ -2,7 +2,7 @@ import { scriptProblems, stepsCoveredBy, type Outline } from '../../shared/schem
 import type { OutlineCreate, OutlineRecord, OutlineSave, OutlineSummary, PuzzleCheck } from '../../shared/schemas/studio'
 import { timeline } from '../../shared/script/index'
 import type { Db } from '../db/knex'
-import { deleteOutline, findOutline, findOutlineStamp, findOutlineSummary, findOutlineText, insertOutline, listOutlines, saveScript, type OutlineFields, type OutlineSummaryRow } from '../db/outlines'
+import { deleteOutline, findOutline, findOutlineStamp, findOutlineSummary, findOutlineText, insertOutline, listOutlines, outlineOf, saveScript, type OutlineFields, type OutlineSummaryRow } from '../db/outlines'
 import { findPuzzle } from '../db/puzzles'
 import type { OutlineRow } from '../db/tables'
 import { HttpError, notFound, stale } from '../errors'
@@ -86,7 +86,7 @@ async function whyNotSaved(db: Db, channelId: number, outlineId: number, save: O
 export async function duplicateOutline(db: Db, channelId: number, outlineId: number, user: Express.User): Promise<OutlineRecord> {
   const source = await existing(db, channelId, outlineId)
   const name = `${source.name.slice(0, NAME_MAX - ' (copy)'.length)} (copy)`
-  return toRecord(await insertOutline(db, source.puzzle_id, user.id, fieldsOf(name, source.document)))
+  return toRecord(await insertOutline(db, source.puzzle_id, user.id, fieldsOf(name, outlineOf(source))))
 }
 
 export async function removeOutline(db: Db, channelId: number, outlineId: number): Promise<void> {
@@ -121,4 +121,4 @@ const toSummary = (row: OutlineSummaryRow): OutlineSummary => ({
   updatedAt: row.updated_at.toISOString(),
 })
 
-const toRecord = (row: OutlineRow): OutlineRecord => ({ ...toSummary(row), outline: row.document })
+const toRecord = (row: OutlineRow): OutlineRecord => ({ ...toSummary(row), outline: outlineOf(row) })

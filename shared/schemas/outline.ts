@@ -64,7 +64,7 @@ const scriptShape = {
   lines: z.array(outlineLineSchema).min(1).max(LINES_MAX),
   chapters: z.array(chapterSchema).min(1).max(LINES_MAX),
 }
-const SCRIPT_KEYS = ['pace', 'names', 'targetMs', 'lines', 'chapters'] as const
+export const SCRIPT_KEYS = ['pace', 'names', 'targetMs', 'lines', 'chapters'] as const
 
 /**
  * What a save sends: the script alone. Checks that need no steps run here; whether the lines cover
@@ -102,6 +102,9 @@ export const outlineSchema = z
     for (const message of scriptProblems(o, o.steps.length)) ctx.addIssue({ code: 'custom', message })
   }, { when: (payload) => payload.issues.length === 0 })
 export type Outline = z.infer<typeof outlineSchema>
+
+/** An outline without its script: the part the engine and the puzzle give, which saves never touch. */
+export type OutlineBase = Omit<Outline, (typeof SCRIPT_KEYS)[number]>
 
 /** The editable part of an outline, as a save sends it. */
 export function scriptOf(outline: Outline): OutlineScript {

@@ -16,6 +16,16 @@ export async function openTestDb(): Promise<Db> {
   return db
 }
 
+/** Runs migrations one at a time until `name` (a migration file name) is the newest applied. */
+export async function migrateUpTo(db: Db, name: string): Promise<void> {
+  const version = name.slice(0, name.indexOf('_'))
+  const applied = async () => {
+    const current = await db.migrate.currentVersion()
+    return current === 'none' ? '' : current
+  }
+  while ((await applied()) < version) await db.migrate.up()
+}
+
 /**
  * A database of its own for a suite that steps migrations up and down, so the other API tests' schema is
  * never disturbed: created empty before the suite, dropped after it. Read `.db` inside tests and hooks.

@@ -6,12 +6,13 @@ import classic from '../fixtures/classic-puzzles.json'
 import { parsePuzzle, solvePath, type Puzzle } from '../../shared/engine/index'
 import { buildOutline } from '../../shared/script/index'
 import type { Outline } from '../../shared/schemas/outline'
-import { useScratchDatabase } from '../helpers/db'
+import { migrateUpTo, useScratchDatabase } from '../helpers/db'
 
 const MIGRATION = '20261203000100_steps_ruled_out.ts'
 
 const scratchDb = useScratchDatabase('ruled_out')
-beforeAll(() => scratchDb.db.migrate.latest())
+// outlines as they were stored then: one document column (a later migration split the script off)
+beforeAll(() => migrateUpTo(scratchDb.db, MIGRATION))
 
 const pe07 = classic.puzzles.find((p) => p.id === 'PE07')!
 const puzzle = parsePuzzle({ title: pe07.title, givens: pe07.givens, thermometers: [] }).puzzle as Puzzle

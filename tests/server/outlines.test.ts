@@ -221,7 +221,7 @@ describe('PATCH /api/channels/:channelId/outlines/:outlineId', () => {
     const read: OutlineRecord = (await as('editor').get(outlinePath(copy.id))).body
     const res = await as('editor').patch(outlinePath(copy.id), saveBody(1, retitled(read.outline, 'Edited around the notes.')))
     expect(res.status).toBe(200)
-    const [stored] = (await api.db.raw(`select document #>> '{steps,0,note}' as note, document #>> '{steps,0,reason,note}' as inner, document #>> '{lines,1,text}' as text from outlines where id = ?`, [copy.id])).rows
+    const [stored] = (await api.db.raw(`select document #>> '{steps,0,note}' as note, document #>> '{steps,0,reason,note}' as inner, script #>> '{lines,1,text}' as text from outlines where id = ?`, [copy.id])).rows
     expect(stored).toEqual({ note: 'kept', inner: 'kept too', text: 'Edited around the notes.' })
   })
 
@@ -303,7 +303,7 @@ describe('GET /api/channels/:channelId/outlines/:outlineId/cue-sheet.pdf', () =>
     // written straight into the database: the schema refuses such a line now, but older documents may hold one
     const copy = await copyOfFirst()
     const outline = { ...copy.outline, lines: copy.outline.lines.map((l, i) => (i === 1 ? { ...l, text: 'x'.repeat(40_000) } : l)) }
-    await api.db('outlines').where({ id: copy.id }).update({ document: api.db.raw('?::jsonb', [JSON.stringify(outline)]) })
+    await api.db('outlines').where({ id: copy.id }).update({ script: api.db.raw('?::jsonb', [JSON.stringify(scriptOf(outline))]) })
     const exports = createExportPool({ threads: 1, timeoutMs: 1500, logger: createLogger('silent') })
     try {
       await cueSheetOf(api.db, exports, api.channelId, first.id, false) // the export thread is up

@@ -195,7 +195,7 @@ describe('PUT /api/channels/:channelId/puzzles/:puzzleId', () => {
 describe('DELETE /api/channels/:channelId/puzzles/:puzzleId', () => {
   it('should remove the puzzle and its outlines', async () => {
     const saved = await create('GT13')
-    await api.db('outlines').insert({ puzzle_id: saved.id, name: 'Take 1', status: 'solved', step_count: 0, total_ms: 0, document: api.db.raw("'{}'::jsonb") })
+    await api.db('outlines').insert({ puzzle_id: saved.id, name: 'Take 1', status: 'solved', step_count: 0, total_ms: 0, document: api.db.raw("'{}'::jsonb"), script: api.db.raw("'{}'::jsonb") })
     const res = await as('presenter').delete(`${puzzles()}/${saved.id}`)
     expect(res.status).toBe(204)
     expect((await as('owner').get(`${puzzles()}/${saved.id}`)).status).toBe(404)
