@@ -2,7 +2,7 @@ import { computed, onScopeDispose, ref, shallowRef, toRaw, toValue, watch } from
 import type { MaybeRefOrGetter, Ref } from 'vue'
 import { useTimeoutFn } from '@vueuse/core'
 import { z } from 'zod'
-import { outlineSchema } from '@shared/schemas/outline'
+import { outlineSchema, scriptOf } from '@shared/schemas/outline'
 import type { Outline } from '@shared/schemas/outline'
 import type { OutlineRecord, OutlineSummary } from '@shared/schemas/studio'
 import { DATABASE_UNAVAILABLE, isApiError, retryDelayMs } from '@/api/http'
@@ -158,30 +158,40 @@ export function useAutosave(options: AutosaveOptions) {
     }
     status.value = 'saving'
     try {
-      const summary = await options.save(version.value, sending)
-      version.value = summary.version
-      baseline.value = sending
-      lastError.value = null
-      failures = 0
-      options.onSaved?.({ ...summary, outline: sending })
-      if (options.outline.value === sending) {
-        status.value = 'saved'
-        removeLocal()
-      } else {
-        // Edited while the request was out: that newer snapshot still needs saving, and the local copy
-        // now builds on the version just saved (else a reload would mistake our own save for someone else's).
-        writeLocal(options.outline.value!)
-        status.value = 'unsaved'
-        schedule(delayMs)
-      }
+      landed(await options.save(version.value, sending), sending)
     } catch (error) {
-      handleFailure(error)
+      handleFailure(error, sending)
     }
   }
 
-  function handleFailure(error: unknown): void {
+  /** The server holds `sent` as `summary.version`. */
+  function landed(summary: OutlineSummary, sent: Outline): void {
+    version.value = summary.version
+    baseline.value = sent
+    lastError.value = null
+    failures = 0
+    options.onSaved?.({ ...summary, outline: sent })
+    if (options.outline.value === sent) {
+      status.value = 'saved'
+      removeLocal()
+    } else {
+      // Edited while the request was out: that newer snapshot still needs saving, and the local copy
+      // now builds on the version just saved (else a reload would mistake our own save for someone else's).
+      writeLocal(options.outline.value!)
+      status.value = 'unsaved'
+      schedule(delayMs)
+    }
+  }
+
+  function handleFailure(error: unknown, sending: Outline): void {
     if (isStaleError<OutlineRecord>(error)) {
       const theirs = error.current
+      // A save whose answer was lost (the connection broke after the server stored it) is retried on the
+      // version it started from and refused as stale: the newer copy is then our own, not someone else's.
+      if (sameData(scriptOf(theirs.outline), scriptOf(sending))) {
+        landed(theirs, sending)
+        return
+      }
       conflict.value = { mine: options.outline.value ?? theirs.outline, theirs }
       status.value = 'conflict'
       lastError.value = null

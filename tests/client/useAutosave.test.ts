@@ -399,6 +399,52 @@ describe('useAutosave', () => {
       expect(sent).toHaveLength(2)
       expect(status()).toHaveTextContent(/^Saved$/)
     })
+
+    it('should recognise its own save when the answer was lost after the server stored it, instead of calling it a conflict', async () => {
+      // the server stores the first save as version 4, but the answer never arrives (503 after COMMIT); the
+      // retry, still on version 3, is then stale against a copy that is exactly what this browser sent
+      const sent: SentSave[] = []
+      let stored: OutlineRecord | null = null
+      api.use(
+        http.patch(OUTLINE_URL, async ({ request }) => {
+          const body = (await request.json()) as SentSave
+          sent.push(body)
+          if (!stored) {
+            stored = recordFor({ ...doc, ...body.script }, { version: 4 })
+            return HttpResponse.json({ code: 'database-unavailable', message: NOT_STORED }, { status: 503 })
+          }
+          return HttpResponse.json({ code: 'stale', message: 'Someone saved first.', details: { current: stored } }, { status: 409 })
+        }),
+      )
+      const { editor, autosave } = renderAutosave(recordFor(doc, { version: 3 }))
+      editor.apply({ op: 'hideLine', lineId: doc.lines[3].id })
+      await wait(1000)
+      expect(status()).toHaveTextContent(WAITING)
+
+      await wait(1500)
+      expect(sent.map((b) => b.version)).toEqual([3, 3])
+      expect(screen.queryByRole('dialog')).toBeNull()
+      expect(status()).toHaveTextContent(/^Saved$/)
+      expect(autosave.version.value).toBe(4)
+      expect(localCopy()).toBeNull()
+    })
+
+    it('should still call it a conflict when the newer copy differs from what this browser sent', async () => {
+      const sent: SentSave[] = []
+      api.use(
+        http.patch(OUTLINE_URL, async ({ request }) => {
+          sent.push((await request.json()) as SentSave)
+          if (sent.length === 1) return HttpResponse.json({ code: 'database-unavailable', message: NOT_STORED }, { status: 503 })
+          const theirs = recordFor(retext(doc, 5, 'The editor rewrote this line.'), { version: 4 })
+          return HttpResponse.json({ code: 'stale', message: 'Someone saved first.', details: { current: theirs } }, { status: 409 })
+        }),
+      )
+      renderAutosave(recordFor(doc, { version: 3 }))
+        .editor.apply({ op: 'hideLine', lineId: doc.lines[3].id })
+      await wait(2500)
+      expect(sent).toHaveLength(2)
+      expect(status()).toHaveTextContent(/^Conflict$/)
+    })
   })
 
   it("should retry while Gridcue can't be reached, saying so", async () => {
