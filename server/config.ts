@@ -13,6 +13,7 @@ const envSchema = z.object({
     .regex(/^postgres(ql)?:\/\//, { message: 'DATABASE_URL must start with postgres:// or postgresql://' }),
   // how long a request waits for a database connection before it answers 503 (knex's own default is a minute)
   DATABASE_TIMEOUT_MS: z.coerce.number().int().min(100).max(60_000).default(3000),
+  DATABASE_QUERY_TIMEOUT_MS: z.coerce.number().int().min(100).max(600_000).default(10_000),
   // connections per app instance: instances × this must stay under PostgreSQL's max_connections
   DATABASE_POOL_MAX: z.coerce.number().int().min(1).max(200).default(10),
   JWT_SECRET: z.string({ message: 'JWT_SECRET is required' }).min(32, { message: 'JWT_SECRET must be at least 32 characters' }),
@@ -42,7 +43,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env) {
   return Object.freeze({
     env: e.NODE_ENV,
     http: { host: e.HOST, port: e.PORT, behindTls: e.BEHIND_TLS },
-    db: { url: e.DATABASE_URL, timeoutMs: e.DATABASE_TIMEOUT_MS, poolMax: e.DATABASE_POOL_MAX },
+    db: { url: e.DATABASE_URL, timeoutMs: e.DATABASE_TIMEOUT_MS, queryTimeoutMs: e.DATABASE_QUERY_TIMEOUT_MS, poolMax: e.DATABASE_POOL_MAX },
     auth: {
       jwtSecret: e.JWT_SECRET,
       tokenTtlSeconds: e.JWT_EXPIRES_IN_SECONDS,

@@ -17,7 +17,7 @@ try {
 }
 
 const logger = createLogger(config.log.level)
-const db = createDb(config.db.url, { timeoutMs: config.db.timeoutMs, poolMax: config.db.poolMax, logger })
+const db = createDb(config.db.url, { timeoutMs: config.db.timeoutMs, queryTimeoutMs: config.db.queryTimeoutMs, poolMax: config.db.poolMax, logger })
 const engine = createEnginePool({ ...config.engine, logger })
 const app = createApp({ db, config, logger, engine })
 

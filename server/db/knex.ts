@@ -6,6 +6,8 @@ export type Db = Knex
 export interface DbOptions {
   /** how long a query waits for a connection (to connect, or for a free one in the pool) before it fails */
   timeoutMs?: number
+  /** how long a sent query waits for its answer: a frozen server (or a lost route) otherwise holds the request for ever */
+  queryTimeoutMs?: number
   /** the most connections one process holds; every app instance counts against PostgreSQL's max_connections */
   poolMax?: number
   /** where knex's own warnings go (a dropped connection, a failed connect); the console when absent */
@@ -14,13 +16,15 @@ export interface DbOptions {
 
 /** Knex waits a minute for a connection by default: a request would hang that long while the database is down. */
 const DEFAULT_TIMEOUT_MS = 3000
+/** Longer than any query of ours takes on a working server (the slowest, a migration, runs outside the app). */
+const DEFAULT_QUERY_TIMEOUT_MS = 10_000
 
 /** The app's one knex instance; it fails fast while the database is away and reconnects by itself when it is back. */
-export function createDb(url: string, { timeoutMs = DEFAULT_TIMEOUT_MS, poolMax, logger }: DbOptions = {}): Db {
+export function createDb(url: string, { timeoutMs = DEFAULT_TIMEOUT_MS, queryTimeoutMs = DEFAULT_QUERY_TIMEOUT_MS, poolMax, logger }: DbOptions = {}): Db {
   const base = knexConfig(url)
   return knex({
     ...base,
-    connection: { connectionString: url, connectionTimeoutMillis: timeoutMs, keepAlive: true },
+    connection: { connectionString: url, connectionTimeoutMillis: timeoutMs, query_timeout: queryTimeoutMs, keepAlive: true },
     acquireConnectionTimeout: timeoutMs,
     // propagateCreateError (knex's default, kept here): a refused connection fails the waiting query at
     // once instead of being retried until the timeout
@@ -53,7 +57,7 @@ export async function databaseAnswers(db: Db, timeoutMs: number): Promise<boolea
 const UNAVAILABLE_CODES = new Set(['ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'EPIPE', 'EHOSTUNREACH', 'ENETUNREACH', 'ENOTFOUND', 'EAI_AGAIN', '57P01', '57P02', '57P03', '53300'])
 // node-postgres raises these without a code when a connection drops or never answers; knex puts the SQL in
 // front of the message, so they are matched anywhere in it
-const UNAVAILABLE_MESSAGES = /Connection terminated|connection error and is not queryable|Client was closed and is not queryable|Connection ended unexpectedly/
+const UNAVAILABLE_MESSAGES = /Query read timeout|Connection terminated|connection error and is not queryable|Client was closed and is not queryable|Connection ended unexpectedly/
 
 /**
  * Whether an error means the database could not be reached or dropped the connection (as opposed to a

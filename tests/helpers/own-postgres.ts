@@ -6,7 +6,7 @@
  */
 import { execFile } from 'node:child_process'
 import { existsSync } from 'node:fs'
-import { appendFile, chmod, mkdtemp, readdir, rm } from 'node:fs/promises'
+import { appendFile, chmod, mkdtemp, readdir, readFile, rm } from 'node:fs/promises'
 import { createServer } from 'node:net'
 import { join } from 'node:path'
 import { promisify } from 'node:util'
@@ -28,6 +28,10 @@ export interface OwnPostgres {
   stop(): Promise<void>
   /** starts it again on the same port with the same data */
   start(): Promise<void>
+  /** freezes every process of the server (SIGSTOP), as a hung machine would: connections stay open, nothing answers */
+  freeze(): Promise<void>
+  /** lets a frozen server run on (SIGCONT) */
+  thaw(): Promise<void>
   /** stops it and removes its folder */
   destroy(): Promise<void>
 }
@@ -44,6 +48,8 @@ export async function startOwnPostgres(): Promise<OwnPostgres> {
     url: `postgres://postgres@127.0.0.1:${port}/${DATABASE}`,
     stop: () => pg('pg_ctl', '-D', data, '-m', 'fast', '-w', 'stop').then(() => undefined),
     start: () => pg('pg_ctl', '-D', data, '-l', join(dir, 'server.log'), '-w', '-t', '30', 'start').then(() => undefined),
+    freeze: () => signalServer(data, 'SIGSTOP'),
+    thaw: () => signalServer(data, 'SIGCONT'),
     destroy: async () => {
       if (existsSync(join(data, 'postmaster.pid'))) await cluster.stop()
       await rm(dir, { recursive: true, force: true })
@@ -80,6 +86,19 @@ async function createSeededDatabase(adminUrl: string, url: string): Promise<void
   } finally {
     await db.destroy()
   }
+}
+
+/** Sends `signal` to the server's postmaster (first line of postmaster.pid) and every process it started. */
+async function signalServer(data: string, signal: NodeJS.Signals): Promise<void> {
+  const postmaster = Number((await readFile(join(data, 'postmaster.pid'), 'utf8')).split('\n')[0])
+  const children: number[] = []
+  for (const entry of await readdir('/proc')) {
+    if (!/^\d+$/.test(entry)) continue
+    // /proc/PID/stat: "pid (name) state ppid …" (proc(5)); the name may hold spaces, so read after its ')'
+    const stat = await readFile(`/proc/${entry}/stat`, 'utf8').catch(() => '')
+    if (Number(stat.slice(stat.lastIndexOf(')') + 2).split(' ')[1]) === postmaster) children.push(Number(entry))
+  }
+  for (const pid of [postmaster, ...children]) process.kill(pid, signal)
 }
 
 const isRoot = () => process.getuid?.() === 0

@@ -172,6 +172,35 @@ describe('the database stopped and started under a running app', () => {
   })
 })
 
+describe('a database that freezes under a running app', () => {
+  let frozenDb: Db
+  let frozenApp: Express
+
+  beforeAll(async () => {
+    frozenDb = createDb(cluster.url, { timeoutMs: 500, queryTimeoutMs: 800, logger: quiet })
+    frozenApp = buildApp(frozenDb, engine)
+    await request(frozenApp).get('/api/health').expect(200) // the pool holds open connections when the freeze comes
+  })
+  afterAll(async () => {
+    await cluster.thaw()
+    await frozenDb.destroy()
+  })
+
+  it('should answer 503 after the query time-out instead of holding the request, and serve again once it runs on', async () => {
+    await cluster.freeze()
+    try {
+      const { res, ms } = await timed(() => request(frozenApp).get(outlinePath()).set('Authorization', `Bearer ${token}`))
+      expect(res.status).toBe(503)
+      expect(res.body.code).toBe('database-unavailable')
+      expect(ms).toBeLessThan(QUICK_MS)
+    } finally {
+      await cluster.thaw()
+    }
+    const after = await request(frozenApp).get(outlinePath()).set('Authorization', `Bearer ${token}`)
+    expect(after.status).toBe(200)
+  })
+})
+
 describe('a database that accepts connections but never answers', () => {
   let silent: Server
   const sockets: Socket[] = []
@@ -216,6 +245,7 @@ describe('isConnectionFailure', () => {
     ['a refused socket', { code: 'ECONNREFUSED' }],
     ["knex's pool time-out", { name: 'KnexTimeoutError', message: 'Knex: Timeout acquiring a connection. The pool is probably full.' }],
     ['a connection dropped under a query', new Error('update "outlines" set … - Connection terminated unexpectedly')],
+    ['a sent query unanswered past the query time-out', new Error('select … - Query read timeout')],
     ['every address of a host refused', { errors: [{ code: 'ECONNREFUSED' }, { code: 'ECONNREFUSED' }] }],
   ])('should count %s as the database being away', (_, error) => {
     expect(isConnectionFailure(error)).toBe(true)
