@@ -48,6 +48,18 @@ const outlineLineSchema = z.object({
 })
 export type OutlineLine = z.infer<typeof outlineLineSchema>
 
+/**
+ * The stretch of the recording that becomes the video: the editor cuts the recording at `inMs` (and at `outMs`
+ * when set). Aligned starts stay in recording time; the timeline and every export count from the cut.
+ */
+const trimSchema = z
+  .object({
+    inMs: z.int().min(0).max(DAY_MS, 'a trim point must be within 24 hours'),
+    outMs: z.int().min(1).max(DAY_MS, 'a trim point must be within 24 hours').optional(),
+  })
+  .refine((t) => t.outMs === undefined || t.outMs > t.inMs, { message: 'the video must end after it starts (out after in)' })
+export type Trim = z.infer<typeof trimSchema>
+
 const chapterSchema = z.object({
   /** the line the chapter starts at */
   lineId: z.int().min(1),
@@ -61,10 +73,11 @@ const scriptShape = {
   pace,
   names: namingStyleSchema,
   targetMs: z.int().min(1).max(DAY_MS, 'a target length must be under 24 hours').optional(),
+  trim: trimSchema.optional(),
   lines: z.array(outlineLineSchema).min(1).max(LINES_MAX),
   chapters: z.array(chapterSchema).min(1).max(LINES_MAX),
 }
-export const SCRIPT_KEYS = ['pace', 'names', 'targetMs', 'lines', 'chapters'] as const
+export const SCRIPT_KEYS = ['pace', 'names', 'targetMs', 'trim', 'lines', 'chapters'] as const
 
 /**
  * What a save sends: the script alone. Checks that need no steps run here; whether the lines cover
@@ -88,6 +101,7 @@ export const outlineSchema = z
     pace: scriptShape.pace,
     names: scriptShape.names,
     targetMs: scriptShape.targetMs,
+    trim: scriptShape.trim,
     status: z.enum(['solved', 'stuck']),
     puzzle: z.object({
       givens: z.string().regex(/^[1-9.]{81}$/, 'givens must be 81 characters, 1-9 or "."'),
@@ -187,5 +201,6 @@ export const outlineEditSchema = z.discriminatedUnion('op', [
   z.object({ op: z.literal('setNames'), names: namingStyleSchema }),
   z.object({ op: z.literal('setTarget'), targetMs: z.number().nullable() }),
   z.object({ op: z.literal('alignLine'), lineId, startMs: z.number().nullable() }),
+  z.object({ op: z.literal('setTrim'), inMs: z.number().nullable(), outMs: z.number().nullable() }),
 ])
 export type OutlineEdit = z.infer<typeof outlineEditSchema>

@@ -192,6 +192,23 @@ export function alignLine(outline: Outline, lineId: number, startMs: number | nu
   return replaceLines(outline, [{ ...line, alignedStartMs: ms }])
 }
 
+/** Sets where the recording is cut to make the video (null and null: no trim, the whole recording). */
+export function setTrim(outline: Outline, inMs: number | null, outMs: number | null): Outline {
+  if (inMs === null && outMs === null) {
+    const { trim: _dropped, ...rest } = outline
+    return rest
+  }
+  const point = (name: string, ms: number) => {
+    if (!Number.isFinite(ms) || ms < 0 || ms >= DAY_MS) throw new Error(`the ${name} point must be a number of milliseconds from 0 to under 24 hours (got ${String(ms)})`)
+    return Math.round(ms)
+  }
+  const cutIn = point('in', inMs ?? 0)
+  if (outMs === null) return { ...outline, trim: { inMs: cutIn } }
+  const cutOut = point('out', outMs)
+  if (cutOut <= cutIn) throw new Error(`the video must end after it starts: out (${cutOut} ms) must be after in (${cutIn} ms)`)
+  return { ...outline, trim: { inMs: cutIn, outMs: cutOut } }
+}
+
 /** Runs an edit received as data (e.g. from the API); the edit is validated first. */
 export function applyEdit(outline: Outline, edit: unknown): Outline {
   const parsed = outlineEditSchema.safeParse(edit)
@@ -219,6 +236,7 @@ const APPLY: { readonly [Op in OutlineEdit['op']]: (o: Outline, e: Extract<Outli
   setNames: (o, e) => setNames(o, e.names),
   setTarget: (o, e) => setTarget(o, e.targetMs),
   alignLine: (o, e) => alignLine(o, e.lineId, e.startMs),
+  setTrim: (o, e) => setTrim(o, e.inMs, e.outMs),
 }
 
 function indexOf(outline: Outline, lineId: number): number {

@@ -83,23 +83,30 @@ export interface Timeline {
 /**
  * Start and duration of every line, and the total. Hidden lines take no time. Aligned starts
  * win over estimates; an estimated line that would run past the next aligned start is cut short.
+ * With a trim, times count from the cut-in point (what the published video shows), and the video
+ * ends at the cut-out point.
  */
-export function timeline(outline: Pick<Outline, 'lines' | 'chapters'>): Timeline {
+export function timeline(outline: Pick<Outline, 'lines' | 'chapters' | 'trim'>): Timeline {
   const visible = outline.lines.filter((l) => !l.hidden)
+  const cutIn = outline.trim?.inMs ?? 0
+  const videoStart = (aligned: number) => Math.max(0, aligned - cutIn)
   const starts: number[] = []
   visible.forEach((l, i) => {
-    starts.push(l.alignedStartMs ?? (i === 0 ? 0 : starts[i - 1] + visible[i - 1].estMs))
+    starts.push(l.alignedStartMs !== undefined ? videoStart(l.alignedStartMs) : i === 0 ? 0 : starts[i - 1] + visible[i - 1].estMs)
   })
   // Estimated starts must not pass a later aligned one, or cues would run backwards.
   for (let i = visible.length - 2; i >= 0; i--) {
     if (visible[i].alignedStartMs === undefined && starts[i] > starts[i + 1]) starts[i] = starts[i + 1]
   }
+  const cutOut = outline.trim?.outMs
+  const totalMs =
+    cutOut !== undefined ? cutOut - cutIn : visible.length === 0 ? 0 : starts[visible.length - 1] + visible[visible.length - 1].estMs
   const byId = new Map<number, { start: number; duration: number }>()
   visible.forEach((l, i) => {
-    const duration = i + 1 < visible.length ? starts[i + 1] - starts[i] : l.estMs
-    byId.set(l.id, { start: starts[i], duration })
+    const start = Math.min(starts[i], totalMs)
+    const end = i + 1 < visible.length ? Math.min(starts[i + 1], totalMs) : cutOut !== undefined ? totalMs : start + l.estMs
+    byId.set(l.id, { start, duration: end - start })
   })
-  const totalMs = visible.length === 0 ? 0 : starts[visible.length - 1] + visible[visible.length - 1].estMs
 
   const lines: TimedLine[] = []
   // A hidden line sits, with no length, where the next visible one starts.

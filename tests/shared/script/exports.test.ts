@@ -10,6 +10,7 @@ import { parseSync } from 'subtitle'
 import { describe, expect, test } from 'vitest'
 import {
   alignLine,
+  applyEdit,
   buildOutline,
   cueSheetRows,
   fromOutlineJson,
@@ -130,6 +131,21 @@ describe('exports, checked by third-party parsers', () => {
     expect(timeline(aligned).source).toBe('aligned')
     const srt = parseSync(toSrt(aligned)).filter((n) => n.type === 'cue')
     expect(srt[0].type === 'cue' && srt[0].data.start).toBe(5000)
+  })
+
+  test('exports count from the trim: a cue at 25 s in the recording is at 20 s in a video cut in at 5 s', () => {
+    let aligned = outline
+    aligned.lines.forEach((l, i) => {
+      aligned = alignLine(aligned, l.id, 5_000 + i * 20_000)
+    })
+    const trimmed = applyEdit(aligned, { op: 'setTrim', inMs: 5_000, outMs: null })
+    const cues = vtt(toWebVttCaptions(trimmed)).cues
+    expect(cues[0].startTime).toBe(0)
+    expect(cues.some((c) => Math.abs(c.startTime - 20) < 1e-9)).toBe(true)
+    const srtStarts = parseSync(toSrt(trimmed)).flatMap((n) => (n.type === 'cue' ? [n.data.start] : []))
+    expect(srtStarts[0]).toBe(0)
+    expect(srtStarts).toContain(20_000)
+    expect(srtStarts).not.toContain(25_000)
   })
 
   test('cueSheetRows => one row per shown line with step numbers, time and text', () => {

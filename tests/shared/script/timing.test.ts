@@ -1,5 +1,5 @@
 import { describe, expect, test } from 'vitest'
-import { TIMING, alignLine, buildOutline, editLineText, fitToTarget, hideLine, setPace, timeline, type Outline } from '../../../shared/script/index'
+import { TIMING, alignLine, applyEdit, buildOutline, editLineText, fitToTarget, hideLine, setPace, timeline, type Outline } from '../../../shared/script/index'
 import { THERMO_A, hiddenSingle, nakedSingle, puzzle, rc, result, thermoLength } from './steps'
 
 const words = (n: number) => Array.from({ length: n }, () => 'word').join(' ')
@@ -59,6 +59,26 @@ describe('timing model', () => {
     expect(t.lines[1].startMs).toBe(40_000)
     expect(t.lines[2].startMs).toBe(40_000 + o.lines[1].estMs)
     expect(() => alignLine(a, o.lines[2].id, 39_000)).toThrow(`line ${o.lines[2].id} can't start before line ${o.lines[1].id}, which starts at 40000 ms`)
+  })
+
+  test('a trim counts every time from the cut-in point and ends the video at the cut-out point', () => {
+    const o = buildOutline(puzzle(), result([hiddenSingle(rc(1, 1)), nakedSingle(rc(5, 5))]))
+    let a = alignLine(o, o.lines[0].id, 2_000)
+    a = alignLine(a, o.lines[1].id, 40_000)
+    a = alignLine(a, o.lines[2].id, 70_000)
+    const trimmed = applyEdit(a, { op: 'setTrim', inMs: 1_500, outMs: 90_000 })
+    expect(trimmed.trim).toEqual({ inMs: 1_500, outMs: 90_000 })
+    // recording time stays on the lines; the timeline is in video time
+    expect(trimmed.lines[1].alignedStartMs).toBe(40_000)
+    const t = timeline(trimmed)
+    expect(t.lines.map((l) => l.startMs)).toEqual([500, 38_500, 68_500, ...t.lines.slice(3).map((l) => l.startMs)])
+    expect(t.totalMs).toBe(88_500)
+    expect(t.lines.at(-1)!.endMs).toBe(88_500)
+    // a cut-in after a line's start cuts that line's opening: it starts the video
+    expect(timeline(applyEdit(a, { op: 'setTrim', inMs: 3_000, outMs: null })).lines[0].startMs).toBe(0)
+    expect(applyEdit(trimmed, { op: 'setTrim', inMs: null, outMs: null }).trim).toBeUndefined()
+    expect(() => applyEdit(a, { op: 'setTrim', inMs: 5_000, outMs: 5_000 })).toThrow('the video must end after it starts: out (5000 ms) must be after in (5000 ms)')
+    expect(() => applyEdit(a, { op: 'setTrim', inMs: -1, outMs: null })).toThrow(/in point must be a number of milliseconds/)
   })
 
   test('setPace(outline, p) re-estimates every line; absurd paces are refused', () => {
