@@ -10,6 +10,8 @@ const config: KnipConfig = {
     'server/workers/engine-task.ts',
     'server/workers/register-tsx.mjs',
     'scripts/*.ts',
+    // the test-recording generator's command line (npx tsx scripts/test-recordings/make.ts)
+    'scripts/test-recordings/make.ts',
     // knex reads these folders by path; knexfile.ts exports a function, so knip's knex plugin can't
     'migrations/*.ts',
     'seeds/*.ts',
@@ -17,6 +19,8 @@ const config: KnipConfig = {
   project: ['**/*.{ts,vue,js,mjs}'],
   // knex loads the driver named by `client: 'pg'` in knexfile.ts with a require of its own
   ignoreDependencies: ['pg'],
+  // Debian's media and speech tools, installed by scripts/lib/setup.sh (ensure_media_tools), not by npm
+  ignoreBinaries: ['ffmpeg', 'espeak-ng', 'sox'],
   // knip's default issue types plus import cycles, which it leaves out by default: a cycle is a
   // layering mistake here (shared/engine ↔ shared/schemas in particular)
   include: ['files', 'dependencies', 'unlisted', 'binaries', 'unresolved', 'exports', 'types', 'enumMembers', 'namespaceMembers', 'duplicates', 'cycles'],

@@ -3,7 +3,10 @@
 # and the database if this run started it. Arguments go to Vite (`npm run dev -- --port 5190`).
 source "$(dirname "$0")/lib/setup.sh"
 
+ensure_media_tools
 prepare_app_database
+trap 'stop_fake_s3; close_database' EXIT
+start_fake_s3_when_asked s3 "${GRIDCUE_S3_PORT:-5441}"
 
 export NODE_ENV=development
 cd "$ROOT"
@@ -17,6 +20,8 @@ SERVER_PIDS+=($!)
 stop() {
   trap - INT TERM
   kill "${SERVER_PIDS[@]}" 2>/dev/null
+  # before the wait below, which waits for every job of this shell
+  stop_fake_s3
   wait
   exit "${STATUS:-0}"
 }

@@ -2,7 +2,10 @@
 # `npm start`: dependencies, PostgreSQL on loopback (or DATABASE_URL), migrations, demo seed, client build, server.
 source "$(dirname "$0")/lib/setup.sh"
 
+ensure_media_tools
 prepare_app_database
+trap 'stop_fake_s3; close_database' EXIT
+start_fake_s3_when_asked s3 "${GRIDCUE_S3_PORT:-5441}"
 
 # Rebuild the client only when a source file is newer than the last build.
 if [ ! -f "$ROOT/dist/index.html" ] || [ -n "$(find "$ROOT/src" "$ROOT/shared" "$ROOT/index.html" "$ROOT/vite.config.ts" -newer "$ROOT/dist/index.html" -print -quit)" ]; then

@@ -8,10 +8,12 @@ ensure_dependencies
 export NODE_ENV=test
 export JWT_SECRET=${JWT_SECRET:-test-secret-that-is-long-enough-for-hs256-signing}
 
-trap close_database EXIT
+trap 'stop_fake_s3; close_database' EXIT
 open_database test "$PG_PORT" gridcue_test throwaway
+start_fake_s3_when_asked s3-test "${GRIDCUE_TEST_S3_PORT:-5442}" throwaway
 
 if ! command -v chromium >/dev/null 2>&1; then apt_install "Chromium (browser tests)" chromium; fi
+ensure_media_tools
 
 # stage NAME COMMAND…: runs one stage from the checkout and logs how long it took; a failure ends the run.
 stage() {

@@ -6,6 +6,7 @@ import { fileURLToPath } from 'node:url'
 import express, { type Express, type Response } from 'express'
 import helmet from 'helmet'
 import { pinoHttp } from 'pino-http'
+import { mediaTokens } from './auth/media-tokens'
 import { createPassport } from './auth/passport'
 import type { Config } from './config'
 import type { Db } from './db/knex'
@@ -15,9 +16,13 @@ import { authEndpoints } from './routes/auth'
 import { channelEndpoints } from './routes/channels'
 import { endpointTable } from './routes/endpoint'
 import { healthEndpoints } from './routes/health'
+import { alignmentEndpoints } from './routes/alignments'
 import { outlineEndpoints } from './routes/outlines'
 import { puzzleEndpoints } from './routes/puzzles'
+import { recordingEndpoints } from './routes/recordings'
+import { createStorage, type Storage } from './storage'
 import { createEnginePool, type EnginePool } from './workers/engine-pool'
+import { createJobQueue, type AlignmentQueue } from './jobs/queue'
 
 export interface AppDeps {
   db: Db
@@ -25,6 +30,10 @@ export interface AppDeps {
   logger?: AppLogger
   /** the engine's worker pool; whoever creates it destroys it on shutdown (threads start on first use) */
   engine?: EnginePool
+  /** the job queue alignment runs go on; whoever creates it stops it (it connects on first use) */
+  jobs?: AlignmentQueue
+  /** where recordings are kept; the configured driver when absent */
+  storage?: Storage
   /** folder with the built client; served with a fallback to index.html for client-side routes */
   clientDir?: string
 }
@@ -32,10 +41,11 @@ export interface AppDeps {
 const DEFAULT_CLIENT_DIR = fileURLToPath(new URL('../dist', import.meta.url))
 
 /** Builds the Express app without listening, so tests can drive it with supertest. */
-export function createApp({ db, config, logger, engine, clientDir = DEFAULT_CLIENT_DIR }: AppDeps): Express {
+export function createApp({ db, config, logger, engine, jobs, storage = createStorage(config.storage), clientDir = DEFAULT_CLIENT_DIR }: AppDeps): Express {
   const app = express()
   logger ??= createLogger(config.log.level)
   engine ??= createEnginePool({ ...config.engine, logger })
+  jobs ??= createJobQueue({ url: config.db.url, logger })
   const passport = createPassport(db, config.auth.jwtSecret)
 
   app.disable('x-powered-by')
@@ -49,7 +59,7 @@ export function createApp({ db, config, logger, engine, clientDir = DEFAULT_CLIE
       autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
       // one short line per request: never headers (they carry tokens)
       serializers: {
-        req: (req: { id: unknown; method: string; url: string }) => ({ id: req.id, method: req.method, url: req.url }),
+        req: (req: { id: unknown; method: string; url: string }) => ({ id: req.id, method: req.method, url: req.url.replace(MEDIA_LINK, '$1…') }),
         res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
       },
     }),
@@ -63,6 +73,8 @@ export function createApp({ db, config, logger, engine, clientDir = DEFAULT_CLIE
   puzzleEndpoints(api, db, engine)
   outlineEndpoints(api, db, engine)
   healthEndpoints(api, db)
+  recordingEndpoints(api, { db, storage, logger, mediaTokens: mediaTokens(config.auth.jwtSecret) }, config)
+  alignmentEndpoints(api, db, jobs)
   app.use('/api', unknownRoute)
 
   if (existsSync(clientDir)) {
@@ -73,6 +85,9 @@ export function createApp({ db, config, logger, engine, clientDir = DEFAULT_CLIE
   app.use(errorHandler)
   return app
 }
+
+// a playback link's token is a key to the recording for hours: logs keep the route, not the key
+const MEDIA_LINK = /^(\/api\/media\/)[^/?]+/
 
 /**
  * helmet's headers with a policy of our own: scripts, styles and fonts only from this origin. HSTS and

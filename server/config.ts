@@ -28,7 +28,21 @@ const envSchema = z.object({
   // a cue sheet normally takes well under a second; one that runs long is stopped and the caller asked to retry
   EXPORT_TIMEOUT_MS: z.coerce.number().int().min(1000).default(10_000),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).optional(),
-})
+  // where recordings are kept: a folder on this machine, or an S3-compatible object store
+  STORAGE: z.enum(['disk', 's3']).default('disk'),
+  STORAGE_DIR: z.string().min(1).default('.data/recordings'),
+  S3_ENDPOINT: z.url({ message: 'S3_ENDPOINT must be an address such as http://127.0.0.1:4569' }).optional(),
+  S3_BUCKET: z.string().min(3).optional(),
+  S3_REGION: z.string().min(1).default('us-east-1'),
+  S3_ACCESS_KEY_ID: z.string().min(1).optional(),
+  S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
+  // one recording's upload; an hour of camera video is a few GB
+  UPLOAD_MAX_BYTES: z.coerce.number().int().min(1).default(4 * 1024 ** 3),
+  // alignment jobs one process works at once: speech recognition is one single-threaded child process per job
+  JOB_WORKERS: z.coerce.number().int().min(1).max(16).default(1),
+  // false when separate `npm run worker` processes work the jobs and this server only queues them
+  JOBS_IN_SERVER: z.stringbool().default(true),
+}).refine((e) => e.STORAGE !== 's3' || e.S3_BUCKET, { message: 'S3_BUCKET is required when STORAGE=s3', path: ['S3_BUCKET'] })
 
 export type Config = ReturnType<typeof loadConfig>
 
@@ -53,7 +67,17 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env) {
     // the worker threads: the engine's pool and the exports' pool (server/workers/engine-pool.ts)
     engine: { threads: e.ENGINE_THREADS, timeoutMs: e.ENGINE_TIMEOUT_MS, exportTimeoutMs: e.EXPORT_TIMEOUT_MS },
     log: { level: e.LOG_LEVEL ?? (e.NODE_ENV === 'test' ? 'silent' : 'info') },
+    storage: storageOf(e),
+    uploads: { maxBytes: e.UPLOAD_MAX_BYTES },
+    jobs: { workers: e.JOB_WORKERS, inServer: e.JOBS_IN_SERVER },
   })
+}
+
+/** Where recordings go; the S3 fields without an endpoint mean the provider's own (AWS). */
+function storageOf(e: z.output<typeof envSchema>) {
+  if (e.STORAGE === 'disk') return { driver: 'disk' as const, dir: e.STORAGE_DIR }
+  const credentials = e.S3_ACCESS_KEY_ID && e.S3_SECRET_ACCESS_KEY ? { accessKeyId: e.S3_ACCESS_KEY_ID, secretAccessKey: e.S3_SECRET_ACCESS_KEY } : undefined
+  return { driver: 's3' as const, endpoint: e.S3_ENDPOINT, bucket: e.S3_BUCKET ?? '', region: e.S3_REGION, credentials }
 }
 
 /** Only the database address, for tools (migrations, seeds) that need nothing else. */

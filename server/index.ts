@@ -1,7 +1,10 @@
 import { createApp } from './app'
 import { loadConfig } from './config'
 import { createDb, databaseAnswers } from './db/knex'
+import { startJobs } from './jobs'
+import { wordSources } from './jobs/word-sources'
 import { createLogger } from './logger'
+import { createStorage } from './storage'
 import { createEnginePool } from './workers/engine-pool'
 
 // start-up messages are for the person at the terminal: plain lines, not JSON log records
@@ -19,7 +22,10 @@ try {
 const logger = createLogger(config.log.level)
 const db = createDb(config.db.url, { timeoutMs: config.db.timeoutMs, queryTimeoutMs: config.db.queryTimeoutMs, poolMax: config.db.poolMax, logger })
 const engine = createEnginePool({ ...config.engine, logger })
-const app = createApp({ db, config, logger, engine })
+const storage = createStorage(config.storage)
+// alignment jobs are worked here unless JOBS_IN_SERVER=false leaves them to `npm run worker` processes
+const jobs = startJobs({ url: config.db.url, workers: config.jobs.inServer ? config.jobs.workers : 0, db, logger, words: wordSources(storage) })
+const app = createApp({ db, config, logger, engine, jobs: jobs.queue })
 
 // Express 5 hands a listen error to this callback as well
 const server = app.listen(config.http.port, config.http.host, (error?: Error) => {
@@ -48,6 +54,8 @@ async function shutdown(signal: string) {
     setTimeout(resolve, DRAIN_MS).unref()
   })
   await engine.destroy()
+  // running alignments are stopped and queued again; that writes to the database, so it goes before it
+  await jobs.stop()
   await db.destroy()
   process.exit(0)
 }

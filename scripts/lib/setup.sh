@@ -23,11 +23,26 @@ ensure_dependencies() {
   fi
 }
 
+# apt_install WHAT PACKAGE…: one apt call for every package given
 apt_install() {
-  [ "$(id -u)" = 0 ] || die "$1 is missing. Install it first: sudo apt-get install -y $2"
-  log "installing $2 from Debian's packages…"
+  local what=$1
+  shift
+  [ "$(id -u)" = 0 ] || die "$what is missing. Install it first: sudo apt-get install -y $*"
+  log "installing $* from Debian's packages…"
   DEBIAN_FRONTEND=noninteractive apt-get update -qq
-  DEBIAN_FRONTEND=noninteractive apt-get install -y -qq "$2" >/dev/null
+  DEBIAN_FRONTEND=noninteractive apt-get install -y -qq "$@" >/dev/null
+}
+
+# ffmpeg and ffprobe read and convert recordings, pocketsphinx with its English model hears a take's
+# audio, espeak-ng and sox make the test recordings: whichever are missing come in one apt call.
+ensure_media_tools() {
+  local missing=()
+  command -v ffprobe >/dev/null 2>&1 && command -v ffmpeg >/dev/null 2>&1 || missing+=(ffmpeg)
+  command -v pocketsphinx_continuous >/dev/null 2>&1 || missing+=(pocketsphinx)
+  [ -f /usr/share/pocketsphinx/model/en-us/cmudict-en-us.dict ] || missing+=(pocketsphinx-en-us)
+  command -v espeak-ng >/dev/null 2>&1 || missing+=(espeak-ng)
+  command -v sox >/dev/null 2>&1 || missing+=(sox)
+  [ "${#missing[@]}" = 0 ] || apt_install "Part of the media tools (${missing[*]})" "${missing[@]}"
 }
 
 ensure_postgres_binaries() {
@@ -161,3 +176,39 @@ ensure_jwt_secret() {
 }
 
 run_tsx() { (cd "$ROOT" && node --import tsx "$@"); }
+
+# start_fake_s3_when_asked NAME PORT [throwaway]: with STORAGE=s3 and no S3_ENDPOINT of your own, runs the
+# local fake S3 server (s3rver, scripts/fake-s3.ts) on 127.0.0.1:PORT with its objects in .data/NAME (emptied
+# first when throwaway) and points the S3 settings at it; no hosted account is needed. Pair with stop_fake_s3.
+start_fake_s3_when_asked() {
+  [ "${STORAGE:-disk}" = s3 ] || return 0
+  # the SDK warns on every start that its releases from 2027 need Node 22; the pinned one runs on Node 20
+  export AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED=true
+  if [ -n "${S3_ENDPOINT:-}" ]; then
+    log "STORAGE=s3: recordings go to the S3 store at $S3_ENDPOINT"
+    return 0
+  fi
+  local name=$1 port=$2 throwaway=${3:-} dir="$DATA_ROOT/$1"
+  if (exec 3<>"/dev/tcp/127.0.0.1/$port") 2>/dev/null; then
+    die "port $port is taken; set GRIDCUE_S3_PORT (npm start, dev) or GRIDCUE_TEST_S3_PORT (npm test) to a free port"
+  fi
+  [ "$throwaway" = throwaway ] && rm -rf "$dir"
+  log "STORAGE=s3: starting the fake S3 server on 127.0.0.1:$port (objects in $dir)"
+  (cd "$ROOT" && exec node --import tsx scripts/fake-s3.ts "$dir" "$port" gridcue-recordings >/dev/null) &
+  FAKE_S3_PID=$!
+  local waited=0
+  until (exec 3<>"/dev/tcp/127.0.0.1/$port") 2>/dev/null; do
+    kill -0 "$FAKE_S3_PID" 2>/dev/null || die "the fake S3 server did not start"
+    [ $((waited += 1)) -le 300 ] || die "the fake S3 server did not answer within 30 s"
+    sleep 0.1
+  done
+  export S3_ENDPOINT="http://127.0.0.1:$port" S3_BUCKET=gridcue-recordings S3_REGION=us-east-1 S3_ACCESS_KEY_ID=S3RVER S3_SECRET_ACCESS_KEY=S3RVER
+}
+
+# Stops the fake S3 server start_fake_s3_when_asked started, if it did; safe to call more than once.
+stop_fake_s3() {
+  [ -n "${FAKE_S3_PID:-}" ] || return 0
+  kill "$FAKE_S3_PID" 2>/dev/null || true
+  wait "$FAKE_S3_PID" 2>/dev/null || true
+  FAKE_S3_PID=
+}

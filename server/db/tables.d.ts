@@ -1,6 +1,7 @@
 import 'knex/types/tables'
 import type { Role } from '../../shared/schemas/auth'
 import type { Outline, OutlineBase, OutlineScript } from '../../shared/schemas/outline'
+import type { AlignmentMethod, AlignmentState, LineProposal, Peaks, RecordingKind } from '../../shared/schemas/recording'
 import type { PuzzleCheck, PuzzleRecord } from '../../shared/schemas/studio'
 
 export interface UserRow {
@@ -68,6 +69,48 @@ export interface OutlineRow {
   updated_at: Date
 }
 
+export interface RecordingRow {
+  id: number
+  outline_id: number
+  /** where the file is in storage (server/storage); ours, never the uploaded name */
+  storage_key: string
+  original_name: string
+  /** from the content */
+  mime: string
+  kind: RecordingKind
+  /** a bigint: pg hands it over as a string */
+  size_bytes: string
+  duration_ms: number | null
+  /** container and stream facts from the probe */
+  facts: Record<string, unknown>
+  /** null until worked out after the upload */
+  peaks: Peaks | null
+  is_current: boolean
+  uploaded_by: number | null
+  created_at: Date
+}
+
+export interface AlignmentRunRow {
+  id: number
+  recording_id: number
+  method: AlignmentMethod
+  state: AlignmentState
+  /** 0..1 */
+  progress: number
+  proposals: LineProposal[]
+  /** line ids */
+  unplaced: number[]
+  /** a sentence for people when the run failed */
+  error: string | null
+  /** the pg-boss job now carrying the run */
+  job_id: string
+  /** the uploaded caption file's text, for the caption method only */
+  caption_text: string | null
+  created_by: number | null
+  created_at: Date
+  updated_at: Date
+}
+
 declare module 'knex/types/tables' {
   interface Tables {
     users: UserRow
@@ -75,5 +118,7 @@ declare module 'knex/types/tables' {
     memberships: MembershipRow
     puzzles: PuzzleRow
     outlines: OutlineRow
+    recordings: RecordingRow
+    alignment_runs: AlignmentRunRow
   }
 }

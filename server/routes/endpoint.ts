@@ -1,10 +1,15 @@
+import type { Readable } from 'node:stream'
+import { pipeline } from 'node:stream/promises'
 import type { Express, Request, RequestHandler, Response } from 'express'
-import type { z, ZodType } from 'zod'
+import { z, type ZodType } from 'zod'
 import type { Action } from '../../shared/permissions'
 import { requireChannelAccess } from '../auth/channel-access'
 import type { JwtPassport } from '../auth/passport'
 import { signedInUser } from '../auth/signed-in-user'
 import type { Db } from '../db/knex'
+import { HttpError } from '../errors'
+import type { ByteRange } from '../storage'
+import type { StoredUpload } from '../uploads/receiver'
 import { idParams, parsePart } from '../middleware/validate'
 
 type Method = 'get' | 'post' | 'put' | 'patch' | 'delete'
@@ -41,6 +46,18 @@ export class Revalidated {
   ) {}
 }
 
+/**
+ * A stored file played or downloaded in pieces: the whole file (200), or the one byte range the request's
+ * Range header asks for (206 with Content-Range; 416 when it lies outside the file), streamed from `open`.
+ */
+export class Media {
+  constructor(
+    readonly mimeType: string,
+    readonly sizeBytes: number,
+    readonly open: (range?: ByteRange) => Promise<Readable>,
+  ) {}
+}
+
 type Schema = ZodType | undefined
 type Parsed<S extends Schema> = S extends ZodType ? z.output<S> : undefined
 
@@ -51,41 +68,55 @@ type PathParams<P extends string> = P extends `${string}:${infer Name}/${infer R
     ? Name
     : never
 
+/** A path's parameters as a handler gets them: `…Id` a number, any other (a link's token) a string. */
+type ParamValues<P extends string> = { [K in PathParams<P>]: K extends `${string}Id` ? number : string }
+
 /** An action is decided per channel, so only a path with `:channelId` may name one. */
 type SignedInAccess<P extends string> = 'channelId' extends PathParams<P> ? Exclude<Access, 'public'> : 'signed-in'
 
-interface Spec<P extends string, Q extends Schema, B extends Schema> {
+/** What an endpoint's `upload` hands over: a file, stored or held, let go again when the rest of the request fails its checks. */
+interface Received {
+  discard: () => Promise<void>
+}
+/** Receives a multipart request's file (undefined when it carried none); a recording streams into storage, a caption file is held in memory. */
+type Receiver<U extends Received> = (req: Request, res: Response) => Promise<U | undefined>
+
+interface Spec<P extends string, Q extends Schema, B extends Schema, U extends Received = StoredUpload> {
   method: Method
-  /** below the table's prefix; every `:param` is a numeric id, checked like the rest of the input */
+  /** below the table's prefix; every `:…Id` param is a numeric id, any other a string (a link's token), checked like the rest of the input */
   path: P
   query?: Q
   body?: B
-  /** the status of a reply with a body (201 for a creation); a handler that returns nothing answers 204 */
-  status?: 200 | 201
+  /** the status of a reply with a body (201 for a creation, 202 for work queued); a handler that returns nothing answers 204 */
+  status?: 200 | 201 | 202
   /** middleware that runs before anything else, e.g. a rate limit */
   before?: RequestHandler[]
+  /** a multipart request's file, received once the caller's access and the path's ids are checked; its other fields are the body */
+  upload?: Receiver<U>
 }
 
-interface SignedInSpec<P extends string, Q extends Schema, B extends Schema> extends Spec<P, Q, B> {
+interface SignedInSpec<P extends string, Q extends Schema, B extends Schema, U extends Received> extends Spec<P, Q, B, U> {
   /** 'signed-in', or the action (shared/permissions.ts) the caller's role in `:channelId` must allow */
   access: SignedInAccess<P>
 }
 
 interface PublicInput<P extends string, Q extends Schema, B extends Schema> {
-  params: Record<PathParams<P>, number>
+  params: ParamValues<P>
   query: Parsed<Q>
   body: Parsed<B>
 }
 
-interface SignedInInput<P extends string, Q extends Schema, B extends Schema> extends PublicInput<P, Q, B> {
+interface SignedInInput<P extends string, Q extends Schema, B extends Schema, U> extends PublicInput<P, Q, B> {
   user: Express.User
+  /** the received file, for an endpoint with `upload` when the request carried one */
+  upload: U | undefined
 }
 
 // what the table builds before the signatures of add/addPublic tie it to one endpoint
-type LooseSpec = Spec<string, Schema, Schema>
+type LooseSpec = Spec<string, Schema, Schema, Received>
 type LooseInput = PublicInput<string, Schema, Schema>
 
-/** What a handler returns: a JSON body, a Download, a Revalidated reply, or nothing (204). */
+/** What a handler returns: a JSON body, a Download, a Revalidated reply, Media, or nothing (204). */
 type Handler<I> = (input: I) => Promise<unknown>
 
 const registries = new WeakMap<Express, readonly EndpointInfo[]>()
@@ -114,8 +145,8 @@ export function endpointTable(app: Express, prefix: string, { db, passport }: { 
   }
 
   /** An endpoint for signed-in people; with an action as its access, for channel members whose role allows it. */
-  function add<P extends string, Q extends Schema = undefined, B extends Schema = undefined>(spec: SignedInSpec<P, Q, B>, handler: Handler<SignedInInput<P, Q, B>>): void
-  function add(spec: LooseSpec & { access: Exclude<Access, 'public'> }, handler: Handler<SignedInInput<string, Schema, Schema>>): void {
+  function add<P extends string, Q extends Schema = undefined, B extends Schema = undefined, U extends Received = StoredUpload>(spec: SignedInSpec<P, Q, B, U>, handler: Handler<SignedInInput<P, Q, B, U>>): void
+  function add(spec: LooseSpec & { access: Exclude<Access, 'public'> }, handler: Handler<SignedInInput<string, Schema, Schema, Received>>): void {
     const parse = inputParser(spec)
     register(spec, spec.access, async (req, res) => {
       const user = await signedInUser(passport, req, res)
@@ -123,7 +154,17 @@ export function endpointTable(app: Express, prefix: string, { db, passport }: { 
         const { channelId } = parsePart('params', channelParams, req.params)
         await requireChannelAccess(db, user.id, channelId, spec.access)
       }
-      return handler({ ...parse(req), user })
+      if (!spec.upload) return handler({ ...parse(req), user, upload: undefined })
+      parse.params(req)
+      const upload = await spec.upload(req, res)
+      let input
+      try {
+        input = parse(req)
+      } catch (error) {
+        await upload?.discard()
+        throw error
+      }
+      return handler({ ...input, user, upload })
     })
   }
 
@@ -141,13 +182,23 @@ const channelParams = idParams('channelId')
 
 const paramNames = (path: string): string[] => [...path.matchAll(/:(\w+)/g)].map(([, name]) => name ?? '')
 
-function inputParser({ path, query, body }: LooseSpec): (req: Request) => LooseInput {
-  const params = idParams(...paramNames(path))
-  return (req) => ({
-    params: parsePart('params', params, req.params),
-    query: query && parsePart('query', query, req.query),
-    body: body && parsePart('body', body, req.body),
-  })
+// a signed link's token: whoever reads it says whether it is good (a bad one is their 404 with a sentence); only its size is checked here
+const tokenParam = z.string().max(2048, { message: 'is too long to be a link' })
+
+function inputParser({ path, query, body }: LooseSpec): ((req: Request) => LooseInput) & { params: (req: Request) => unknown } {
+  const names = paramNames(path)
+  const params = idParams(...names.filter((name) => name.endsWith('Id'))).extend(
+    Object.fromEntries(names.filter((name) => !name.endsWith('Id')).map((name) => [name, tokenParam])),
+  )
+  const parseParams = (req: Request) => parsePart('params', params, req.params)
+  return Object.assign(
+    (req: Request) => ({
+      params: parseParams(req),
+      query: query && parsePart('query', query, req.query),
+      body: body && parsePart('body', body, req.body),
+    }),
+    { params: parseParams },
+  )
 }
 
 async function reply(req: Request, res: Response, result: unknown, status = 200): Promise<void> {
@@ -157,6 +208,38 @@ async function reply(req: Request, res: Response, result: unknown, status = 200)
     if (req.fresh) res.status(304).end()
     else res.status(status).type('json').send(await result.json())
   } else if (result instanceof Download) res.type(result.mimeType).attachment(result.filename).send(result.content)
+  else if (result instanceof Media) await sendMedia(req, res, result)
   else if (result === undefined) res.status(204).end()
   else res.status(status).json(result)
+}
+
+const MEDIA_HEADERS = {
+  'Accept-Ranges': 'bytes',
+  // a stored file never changes under its id; only this browser may keep it (an hour), never a shared cache
+  'Cache-Control': 'private, max-age=3600',
+}
+
+/** Range requests as RFC 9110 §14 has them: one range → 206, none, several or a malformed one → the whole file. */
+async function sendMedia(req: Request, res: Response, media: Media): Promise<void> {
+  const size = media.sizeBytes
+  const ranges = req.headers.range === undefined ? undefined : req.range(size, { combine: true })
+  if (ranges === -1) {
+    res.set('Content-Range', `bytes */${size}`)
+    throw new HttpError(416, 'range-not-satisfiable', `The range asked for lies outside the file, which has ${size} bytes.`)
+  }
+  const range = Array.isArray(ranges) && ranges.type === 'bytes' && ranges.length === 1 ? ranges[0] : undefined
+  res.set(MEDIA_HEADERS).type(media.mimeType)
+  if (range) res.status(206).set({ 'Content-Range': `bytes ${range.start}-${range.end}/${size}`, 'Content-Length': String(range.end - range.start + 1) })
+  else res.status(200).set('Content-Length', String(size))
+  // Express answers HEAD with the GET route: the headers say it all, and the store is not read
+  if (req.method === 'HEAD') return void res.end()
+  const body = await media.open(range && { start: range.start, end: range.end })
+  try {
+    await pipeline(body, res)
+  } catch (error) {
+    // a player that seeks closes its request mid-file all the time: no failure of ours. A store failing
+    // mid-file can't become an error reply any more (the status is sent): the cut connection says it.
+    if (!req.destroyed) req.log?.warn({ err: error }, 'media stream failed')
+    res.destroy()
+  }
 }

@@ -58,7 +58,6 @@ const trimSchema = z
     outMs: z.int().min(1).max(DAY_MS, 'a trim point must be within 24 hours').optional(),
   })
   .refine((t) => t.outMs === undefined || t.outMs > t.inMs, { message: 'the video must end after it starts (out after in)' })
-export type Trim = z.infer<typeof trimSchema>
 
 const chapterSchema = z.object({
   /** the line the chapter starts at */

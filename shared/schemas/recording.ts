@@ -6,19 +6,26 @@
  *                                                                          not audio/video by its content → 415, over the limit → 413
  *   PATCH  /recordings/:recordingId                        recording.edit  body RecordingUpdate → Recording
  *   DELETE /recordings/:recordingId                        recording.edit  → 204 (the file goes too)
- *   GET    /recordings/:recordingId/media                  recording.read  the file; Range → 206, bad range → 416
+ *   GET    /recordings/:recordingId/media                  recording.read  the file; Range → 206, bad range → 416;
+ *                                                                          its stored file gone → 404
+ *   GET    /recordings/:recordingId/media-link             recording.read  → MediaLink: a playback address a media element
+ *                                                                          can use without the session's token
  *   GET    /recordings/:recordingId/peaks                  recording.read  → Peaks
  *   POST   /recordings/:recordingId/alignments             recording.edit  JSON { method: 'audio' } or multipart
  *                                                                          { method: 'captions', file } → AlignmentRun (202)
  *   GET    /recordings/:recordingId/alignments             recording.read  → AlignmentRun[] (newest first)
  *   GET    /recordings/:recordingId/alignments/:runId      recording.read  → AlignmentRun
  *   DELETE /recordings/:recordingId/alignments/:runId      recording.edit  → AlignmentRun (cancelled, when it was still running)
+ * And one public route, outside any channel:
+ *   GET    /api/media/:token                               the link's token   the file, as …/media answers it; a link
+ *                                                                          expired or ended by signing out → 401, a
+ *                                                                          malformed one → 404
  * Accepting a proposal is an ordinary outline edit (`alignLine`), saved like any other line edit.
  */
 import { z } from 'zod'
 import { text } from './text'
 
-export const recordingKindSchema = z.enum(['audio', 'video'])
+const recordingKindSchema = z.enum(['audio', 'video'])
 export type RecordingKind = z.infer<typeof recordingKindSchema>
 
 export const recordingSchema = z.object({
@@ -47,6 +54,15 @@ export const recordingUpdateSchema = z.object({
 })
 export type RecordingUpdate = z.infer<typeof recordingUpdateSchema>
 
+/** A short-lived address that plays one recording (the player asks the server in ranges, so nothing is fetched whole). */
+export const mediaLinkSchema = z.object({
+  /** below the app's origin: `/api/media/<token>` */
+  url: z.string(),
+  /** the link stops working then (and when its user signs out); ask for a new one before */
+  expiresAt: z.iso.datetime({ offset: true }),
+})
+export type MediaLink = z.infer<typeof mediaLinkSchema>
+
 /** Waveform peaks computed once on the server: the largest absolute sample in each slice, 0..1. */
 export const peaksSchema = z.object({
   durationMs: z.int(),
@@ -55,11 +71,11 @@ export const peaksSchema = z.object({
 })
 export type Peaks = z.infer<typeof peaksSchema>
 
-export const alignmentMethodSchema = z.enum(['captions', 'audio'])
+const alignmentMethodSchema = z.enum(['captions', 'audio'])
 export type AlignmentMethod = z.infer<typeof alignmentMethodSchema>
 
 /** Where one visible line starts in the recording, as the matcher sees it. */
-export const lineProposalSchema = z.object({
+const lineProposalSchema = z.object({
   lineId: z.int(),
   startMs: z.int().min(0),
   /** 0..1: share of the line's words found in order, weighed by how closely they matched */
@@ -67,7 +83,7 @@ export const lineProposalSchema = z.object({
 })
 export type LineProposal = z.infer<typeof lineProposalSchema>
 
-export const alignmentStateSchema = z.enum(['queued', 'running', 'done', 'failed', 'cancelled'])
+const alignmentStateSchema = z.enum(['queued', 'running', 'done', 'failed', 'cancelled'])
 export type AlignmentState = z.infer<typeof alignmentStateSchema>
 
 export const alignmentRunSchema = z.object({

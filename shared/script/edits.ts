@@ -193,7 +193,7 @@ export function alignLine(outline: Outline, lineId: number, startMs: number | nu
 }
 
 /** Sets where the recording is cut to make the video (null and null: no trim, the whole recording). */
-export function setTrim(outline: Outline, inMs: number | null, outMs: number | null): Outline {
+function setTrim(outline: Outline, inMs: number | null, outMs: number | null): Outline {
   if (inMs === null && outMs === null) {
     const { trim: _dropped, ...rest } = outline
     return rest

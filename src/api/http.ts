@@ -59,6 +59,11 @@ export function setHttpAuth(next: HttpAuth): void {
   auth = next
 }
 
+/** The registered session, for the one request `fetch` can't make: an upload that reports its progress (src/api/recordings.ts). */
+export function httpAuth(): HttpAuth {
+  return auth
+}
+
 /** Sends a request with the session's token; any non-2xx answer becomes an ApiError. */
 async function send(method: Method, path: string, body: unknown, options: RequestOptions = {}): Promise<Response> {
   const headers: Record<string, string> = { Accept: 'application/json' }
@@ -107,7 +112,8 @@ async function readJson(response: Response): Promise<unknown> {
   }
 }
 
-function toApiError(status: number, data: unknown): ApiError {
+/** A non-2xx answer as an ApiError: the server's `{ code, message }` when it sent one, else a sentence of our own. */
+export function toApiError(status: number, data: unknown): ApiError {
   const body = apiErrorSchema.safeParse(data)
   if (body.success) return new ApiError(status, body.data.code, body.data.message, body.data.details)
   return new ApiError(status, `http-${status}`, fallbackMessage(status))

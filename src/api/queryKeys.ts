@@ -11,3 +11,16 @@ export const outlineKeys = {
   byPuzzle: (channelId: number, puzzleId: number) => ['channels', channelId, 'puzzles', puzzleId, 'outlines'] as const,
   detail: (channelId: number, outlineId: number) => ['channels', channelId, 'outlines', outlineId] as const,
 }
+
+/** A recording's waveform and runs sit under the take's list; a change to the list refreshes the list alone (`exact`), as they don't change with it. */
+export const recordingKeys = {
+  byOutline: (channelId: number, outlineId: number) => ['channels', channelId, 'outlines', outlineId, 'recordings'] as const,
+  mediaLink: (channelId: number, outlineId: number, recordingId: number) =>
+    ['channels', channelId, 'outlines', outlineId, 'recordings', recordingId, 'media-link'] as const,
+  peaks: (channelId: number, outlineId: number, recordingId: number) =>
+    ['channels', channelId, 'outlines', outlineId, 'recordings', recordingId, 'peaks'] as const,
+  runs: (channelId: number, outlineId: number, recordingId: number) =>
+    ['channels', channelId, 'outlines', outlineId, 'recordings', recordingId, 'alignments'] as const,
+  run: (channelId: number, outlineId: number, recordingId: number, runId: number) =>
+    ['channels', channelId, 'outlines', outlineId, 'recordings', recordingId, 'alignments', runId] as const,
+}

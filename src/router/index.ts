@@ -21,7 +21,7 @@ declare module 'vue-router' {
 }
 
 /** Every route is named, and only with one of these. */
-type RouteName = 'sign-in' | 'home' | 'library' | 'channel-members' | 'puzzle' | 'studio' | 'not-found'
+type RouteName = 'sign-in' | 'home' | 'library' | 'channel-members' | 'puzzle' | 'studio' | 'align' | 'not-found'
 
 /** Why the guard sent someone to the home page instead of where they asked to go. */
 export type HomeNotice = 'forbidden' | 'access-unchecked'
@@ -59,6 +59,13 @@ export const routes: (RouteRecordRaw & { name: RouteName })[] = [
     component: () => import('@/views/StudioView.vue'),
     props: (route) => ({ channelId: Number(route.params.channelId), outlineId: Number(route.params.outlineId) }),
     meta: { requiresAuth: true, access: 'outline.read', wide: true },
+  },
+  {
+    path: '/channels/:channelId(\\d+)/outlines/:outlineId(\\d+)/align',
+    name: 'align',
+    component: () => import('@/views/AlignView.vue'),
+    props: (route) => ({ channelId: Number(route.params.channelId), outlineId: Number(route.params.outlineId) }),
+    meta: { requiresAuth: true, access: 'recording.edit', wide: true },
   },
   { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/views/NotFoundView.vue') },
 ]

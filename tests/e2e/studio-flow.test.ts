@@ -93,7 +93,7 @@ describe('presenter: from an empty puzzle to an edited, saved outline (Chromium)
 
     // and the server holds it, not only this browser
     const stored = await suite.db('outlines').orderBy('id', 'desc').first()
-    expect(JSON.stringify(stored!.document)).toContain('the thermometer we just drew')
+    expect(JSON.stringify(stored!.script)).toContain('the thermometer we just drew')
     await page.close()
   })
 })

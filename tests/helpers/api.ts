@@ -4,6 +4,7 @@ import { afterAll, beforeAll, beforeEach } from 'vitest'
 import { createApp } from '../../server/app'
 import { issueToken } from '../../server/auth/tokens'
 import { createDb, type Db } from '../../server/db/knex'
+import { createJobQueue, type AlignmentQueue } from '../../server/jobs/queue'
 import { createLogger } from '../../server/logger'
 import { listEndpoints, type EndpointInfo } from '../../server/routes/endpoint'
 import { createEnginePool, type EnginePool } from '../../server/workers/engine-pool'
@@ -12,7 +13,7 @@ import type { Role } from '../../shared/schemas/auth'
 import type { PuzzleDraft, PuzzleRecord } from '../../shared/schemas/studio'
 import { openTestDb, resetWithDemo, saveBaseline, testConfig, type Baseline } from './db'
 
-const buildTestApp = (db: Db, engine?: EnginePool): Express => createApp({ db, config: testConfig(), engine, clientDir: '/nonexistent' })
+const buildTestApp = (db: Db, engine?: EnginePool, jobs?: AlignmentQueue): Express => createApp({ db, config: testConfig(), engine, jobs, clientDir: '/nonexistent' })
 
 /** A one-thread engine pool for API tests; destroy it in afterAll. */
 export const testEnginePool = (): EnginePool => createEnginePool({ threads: 1, timeoutMs: 60_000, logger: createLogger('error') })
@@ -49,11 +50,14 @@ export interface ApiSuite {
 export interface ApiSuiteOptions {
   /** data every test of the file starts from, made once (through the API) on top of the demo data */
   prepare?: (suite: ApiSuite) => Promise<void>
+  /** the queue the app puts alignment runs on (the caller stops it); by default one that only queues, stopped after the suite */
+  jobs?: (db: Db) => AlignmentQueue
 }
 
 interface SuiteState {
   db: Db
   engine: EnginePool
+  jobs: AlignmentQueue
   app: Express
   baseline: Baseline | undefined
   channelId: number
@@ -69,6 +73,8 @@ interface SuiteState {
 export function useApiSuite(options: ApiSuiteOptions = {}): ApiSuite {
   let state: SuiteState | undefined
   let otherChannels = 0
+  // one queue for the suite's apps, which are built again for every test: it connects only when a test queues a job
+  const ownQueue = createJobQueue({ url: testConfig().db.url, logger: createLogger('silent') })
   const current = (): SuiteState => {
     if (!state) throw new Error('useApiSuite: the suite is used before its beforeAll ran')
     return state
@@ -108,18 +114,20 @@ export function useApiSuite(options: ApiSuiteOptions = {}): ApiSuite {
     const users = await peopleOf(db)
     const channelId = (await db('channels').where({ slug: 'marigold-logic' }).first())!.id
     const engine = testEnginePool()
-    state = { db, engine, app: buildTestApp(db, engine), baseline: undefined, channelId, users }
+    const jobs = options.jobs?.(db) ?? ownQueue
+    state = { db, engine, jobs, app: buildTestApp(db, engine, jobs), baseline: undefined, channelId, users }
     await options.prepare?.(suite)
     state.baseline = await saveBaseline(db)
   })
   beforeEach(async () => {
     const s = current()
     await s.baseline?.restore()
-    s.app = buildTestApp(s.db, s.engine)
+    s.app = buildTestApp(s.db, s.engine, s.jobs)
   })
   afterAll(async () => {
     if (!state) return
     await state.engine.destroy()
+    await ownQueue.close()
     await state.baseline?.drop()
     await state.db.destroy()
   })

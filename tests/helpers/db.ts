@@ -1,3 +1,5 @@
+import { tmpdir } from 'node:os'
+import { join } from 'node:path'
 import knex from 'knex'
 import { afterAll, beforeAll } from 'vitest'
 import { knexConfig } from '../../knexfile'
@@ -5,9 +7,15 @@ import { loadConfig } from '../../server/config'
 import { createDb, type Db } from '../../server/db/knex'
 import { seed as seedDemo } from '../../seeds/01_demo_channel'
 
-/** Config for tests: the test database from DATABASE_URL (set by `npm test`), quiet logs. */
+/** Config for tests: the test database from DATABASE_URL (set by `npm test`), quiet logs, recordings in a temporary folder. */
 export const testConfig = () =>
-  loadConfig({ ...process.env, NODE_ENV: 'test', SIGN_IN_ATTEMPTS_PER_15_MIN: '5', JWT_SECRET: process.env.JWT_SECRET ?? 'x'.repeat(40) })
+  loadConfig({
+    STORAGE_DIR: join(tmpdir(), 'gridcue-test-recordings'),
+    ...process.env,
+    NODE_ENV: 'test',
+    SIGN_IN_ATTEMPTS_PER_15_MIN: '5',
+    JWT_SECRET: process.env.JWT_SECRET ?? 'x'.repeat(40),
+  })
 
 /** A knex instance on the test database, migrated to the latest schema. */
 export async function openTestDb(): Promise<Db> {

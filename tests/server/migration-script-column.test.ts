@@ -4,7 +4,7 @@
 import { beforeAll, describe, expect, it } from 'vitest'
 import classic from '../fixtures/classic-puzzles.json'
 import { parsePuzzle, solvePath, type Puzzle } from '../../shared/engine/index'
-import { SCRIPT_KEYS, scriptOf, type Outline } from '../../shared/schemas/outline'
+import { scriptOf, type Outline } from '../../shared/schemas/outline'
 import { buildOutline } from '../../shared/script/index'
 import { migrateUpTo, useScratchDatabase } from '../helpers/db'
 
@@ -37,7 +37,8 @@ describe(`migration ${MIGRATION}`, () => {
     await scratchDb.db.migrate.up({ name: MIGRATION })
     const split = await rowOf(id)
     expect(split.script).toEqual(scriptOf(outline))
-    expect(Object.keys(split.script as object).sort()).toEqual([...SCRIPT_KEYS].sort())
+    // the script's keys when the migration was written (trim came later)
+    expect(Object.keys(split.script as object).sort()).toEqual(['chapters', 'lines', 'names', 'pace', 'targetMs'])
     expect(split.document).not.toHaveProperty('lines')
     expect({ ...(split.document as object), ...(split.script as object) }).toEqual(outline)
 

@@ -5,22 +5,30 @@
  * callers it has one more: the owner of another channel, who must fare no better than a non-member,
  * whether they name the demo channel or their own channel with the demo channel's puzzle or outline.
  */
+import { randomUUID } from 'node:crypto'
 import request from 'supertest'
 import { describe, expect, it } from 'vitest'
 import type { Express } from 'express'
+import { mediaTokens } from '../../server/auth/media-tokens'
 import { issueToken } from '../../server/auth/tokens'
+import { insertRun } from '../../server/db/alignment-runs'
+import { insertRecording } from '../../server/db/recordings'
 import type { Access, EndpointInfo } from '../../server/routes/endpoint'
 import { DEMO_PASSWORD } from '../../seeds/01_demo_channel'
 import { rolesFor } from '../../shared/permissions'
 import { scriptOf } from '../../shared/schemas/outline'
 import type { OutlineRecord, PuzzleRecord } from '../../shared/schemas/studio'
-import { ACTORS, demoEmail, registeredEndpoints, useApiSuite, type Actor } from '../helpers/api'
+import { ACTORS, demoEmail, registeredEndpoints, useApiSuite, type Actor, type ApiSuite } from '../helpers/api'
 import { testConfig } from '../helpers/db'
+import { wavFile } from '../helpers/media'
 import { draftOf } from '../helpers/studio'
 
 let puzzle: PuzzleRecord
 let outline: OutlineRecord
 let otherOwner: { id: number; channelId: number }
+let played: number
+let spare: number
+let alignment: { recordingId: number; runId: number }
 const api = useApiSuite({
   prepare: async (suite) => {
     puzzle = await suite.createPuzzle(draftOf('GT13'))
@@ -28,6 +36,9 @@ const api = useApiSuite({
     if (res.status !== 201) throw new Error(`making an outline failed: ${res.status} ${JSON.stringify(res.body)}`)
     outline = res.body
     otherOwner = await ownerOfAnotherChannel(suite.db)
+    played = await uploadedRecording(suite, outline.id)
+    spare = await uploadedRecording(suite, outline.id)
+    alignment = await recordingWithRun(suite.db, outline.id)
   },
 })
 
@@ -40,10 +51,39 @@ async function ownerOfAnotherChannel(db: typeof api.db): Promise<typeof otherOwn
   return { id: user!.id, channelId: channel!.id }
 }
 
+/** A recording row of the outline (its file is never read here) with one queued alignment run. */
+async function recordingWithRun(db: typeof api.db, outlineId: number): Promise<typeof alignment> {
+  const recordingId = await insertRecording(db, {
+    outline_id: outlineId, storage_key: `recordings/${outlineId}/matrix.wav`, original_name: 'matrix.wav', mime: 'audio/wav', kind: 'audio', size_bytes: 44, duration_ms: 1000, facts: {}, uploaded_by: null,
+  })
+  const run = await insertRun(db, { recording_id: recordingId, method: 'audio', job_id: randomUUID(), caption_text: null, created_by: null })
+  return { recordingId, runId: run.id }
+}
+
+/** A recording uploaded through the API, its waveform worked out: one whose file is really there to play. */
+async function uploadedRecording(suite: ApiSuite, outlineId: number): Promise<number> {
+  const base = `/api/channels/${suite.channelId}/outlines/${outlineId}/recordings`
+  const res = await suite.as('owner').post(base).attach('file', wavFile({ seconds: 0.5 }), 'matrix-take.wav')
+  if (res.status !== 201) throw new Error(`uploading a recording failed: ${res.status} ${JSON.stringify(res.body)}`)
+  for (let tries = 0; (await suite.as('owner').get(`${base}/${res.body.id}/peaks`)).status !== 200; tries++) {
+    if (tries === 100) throw new Error('the waveform of the uploaded recording was not ready within 10 s')
+    await new Promise((resolve) => setTimeout(resolve, 100))
+  }
+  return res.body.id
+}
+
+/** A playback link's token for the played recording, as the owner gets one (the data is restored before each test). */
+const playbackToken = () =>
+  mediaTokens(testConfig().auth.jwtSecret).issue({ userId: api.user('owner').id, tokenVersion: 0, channelId: api.channelId, outlineId: outline.id, recordingId: played }).token
+
 interface Row {
   access: Access
   /** a valid body, built when the test runs (after the puzzle and outline above exist) */
   body?: () => object
+  /** a file sent as the multipart field `file` (the body's fields go beside it) */
+  file?: () => { name: string; content: Buffer }
+  /** path ids (or a link's token) of this row's own, over the shared ones */
+  ids?: () => Record<string, number | string>
 }
 
 /** Each endpoint by `METHOD path`: who may call it, and what a valid request sends. */
@@ -67,6 +107,20 @@ const ENDPOINTS: Record<string, Row> = {
   'GET /api/channels/:channelId/outlines/:outlineId/cue-sheet.pdf': { access: 'outline.read' },
   'POST /api/channels/:channelId/outlines/:outlineId/duplicate': { access: 'outline.create' },
   'DELETE /api/channels/:channelId/outlines/:outlineId': { access: 'outline.create' },
+  'GET /api/channels/:channelId/outlines/:outlineId/recordings': { access: 'recording.read' },
+  'POST /api/channels/:channelId/outlines/:outlineId/recordings': { access: 'recording.edit', file: () => ({ name: 'another-take.wav', content: wavFile({ seconds: 0.2 }) }) },
+  'PATCH /api/channels/:channelId/outlines/:outlineId/recordings/:recordingId': { access: 'recording.edit', body: () => ({ current: true }), ids: () => ({ recordingId: played }) },
+  // the spare one: its file goes with the first allowed delete, and later deletes of the restored row still succeed
+  'DELETE /api/channels/:channelId/outlines/:outlineId/recordings/:recordingId': { access: 'recording.edit', ids: () => ({ recordingId: spare }) },
+  'GET /api/channels/:channelId/outlines/:outlineId/recordings/:recordingId/media': { access: 'recording.read', ids: () => ({ recordingId: played }) },
+  'GET /api/channels/:channelId/outlines/:outlineId/recordings/:recordingId/media-link': { access: 'recording.read', ids: () => ({ recordingId: played }) },
+  // public: the link's token is the access, so any caller holding a valid one plays the recording
+  'GET /api/media/:token': { access: 'public', ids: () => ({ token: playbackToken() }) },
+  'GET /api/channels/:channelId/outlines/:outlineId/recordings/:recordingId/peaks': { access: 'recording.read', ids: () => ({ recordingId: played }) },
+  'POST /api/channels/:channelId/outlines/:outlineId/recordings/:recordingId/alignments': { access: 'recording.edit', body: () => ({ method: 'audio' }) },
+  'GET /api/channels/:channelId/outlines/:outlineId/recordings/:recordingId/alignments': { access: 'recording.read' },
+  'GET /api/channels/:channelId/outlines/:outlineId/recordings/:recordingId/alignments/:runId': { access: 'recording.read' },
+  'DELETE /api/channels/:channelId/outlines/:outlineId/recordings/:recordingId/alignments/:runId': { access: 'recording.edit' },
 }
 
 const endpoints = await registeredEndpoints()
@@ -95,13 +149,15 @@ type Client = ReturnType<typeof api.as>
 function call(endpoint: EndpointInfo, caller: Actor | Client, ids: Record<string, string | number> = {}) {
   const row = ENDPOINTS[keyOf(endpoint)]
   if (!row) throw new Error(`${keyOf(endpoint)} has no row in ENDPOINTS: add its access and a valid request`)
-  const known: Record<string, string | number> = { channelId: api.channelId, puzzleId: puzzle.id, outlineId: outline.id, ...ids }
+  const known: Record<string, string | number> = { channelId: api.channelId, puzzleId: puzzle.id, outlineId: outline.id, ...alignment, ...row.ids?.(), ...ids }
   const path = endpoint.path.replace(/:(\w+)/g, (_, name: string) => {
     if (known[name] === undefined) throw new Error(`no test id for :${name}`)
     return String(known[name])
   })
   const client = typeof caller === 'string' ? api.as(caller) : caller
-  return client[endpoint.method](path, row.body?.())
+  const req = client[endpoint.method](path, row.body?.())
+  const file = row.file?.()
+  return file ? req.attach('file', file.content, file.name) : req
 }
 
 /** Requests as the owner of the other channel, with a token signed for them as the helper signs its callers'. */
