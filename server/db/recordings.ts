@@ -94,7 +94,7 @@ export function deleteRecording(db: Db, recordingId: number): Promise<string | u
   })
 }
 
-/** Saves the waveform peaks once they are worked out; false when the recording went in the meantime. */
-export async function savePeaks(db: Db, recordingId: number, peaks: Peaks): Promise<boolean> {
-  return (await db('recordings').where({ id: recordingId }).update({ peaks: db.raw('?::jsonb', [JSON.stringify(peaks)]) })) > 0
+/** Stores peaks worked out from the file at `storageKey`, only while the row still holds that file; false otherwise. */
+export async function savePeaks(db: Db, recordingId: number, storageKey: string, peaks: Peaks): Promise<boolean> {
+  return (await db('recordings').where({ id: recordingId, storage_key: storageKey }).update({ peaks: db.raw('?::jsonb', [JSON.stringify(peaks)]) })) > 0
 }

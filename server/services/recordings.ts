@@ -115,8 +115,9 @@ async function workOutPeaks({ db, storage, logger }: RecordingDeps, row: Recordi
     const peaks = hasSound(row)
       ? await storage.withLocalFile(row.storage_key, (path) => computePeaks(path, { perSecond: PEAKS_PER_SECOND }))
       : silentPeaks(row.duration_ms ?? 0)
-    // a recording deleted meanwhile has nowhere to keep them, and needs none
-    await savePeaks(db, row.id, peaks)
+    // a recording deleted meanwhile has nowhere to keep them, and needs none; checked by file, not by id
+    // alone, so peaks worked out late never land on another recording that came to have the same id
+    await savePeaks(db, row.id, row.storage_key, peaks)
   } catch (error) {
     logger.warn({ err: error, recordingId: row.id }, 'waveform peaks could not be worked out')
   }
