@@ -19,6 +19,10 @@ const SAVE_CONNECTIONS = 10
 // generateThermo(5007): a fresh thermometer puzzle whose path has about 150 steps
 const LONG_PUZZLE_SEED = 5007
 
+// markers in the save body where each request's version and take number go
+const VERSION = 987654321
+const TAKE = 'TAKE-MARKER'
+
 interface Figures {
   name: string
   requestsPerSecond: number
@@ -82,10 +86,6 @@ function unexpectedAnswers(result: autocannon.Result, expectedStatus: number): n
   const counts = Object.entries(result.statusCodeStats ?? {}) as [string, { count: number }][]
   return counts.reduce((sum, [status, { count }]) => (Number(status) === expectedStatus ? sum : sum + count), 0)
 }
-
-// markers in the save body where each request's version and take number go
-const VERSION = 987654321
-const TAKE = 'TAKE-MARKER'
 
 /**
  * Saves a line over and over, each connection on its own outline with the version the last answer carried, so
