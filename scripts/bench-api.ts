@@ -11,6 +11,7 @@ import autocannon from 'autocannon'
 import { scriptOf } from '../shared/schemas/outline'
 import type { OutlineRecord, OutlineSummary, PuzzleRecord } from '../shared/schemas/studio'
 import { generateThermo } from '../tests/helpers/generate-thermo'
+import { api, signIn } from './lib/bench-client'
 
 const ROOT = new URL('..', import.meta.url)
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 10)
@@ -159,22 +160,6 @@ function pdfLoop(base: string, path: string, token: string) {
 function longPuzzle() {
   const g = generateThermo(LONG_PUZZLE_SEED)
   return { title: 'Bench: long path', author: 'Gridcue benchmark', givens: g.givens, thermometers: g.thermometers }
-}
-
-async function signIn(base: string, email: string, password: string): Promise<string> {
-  const body = (await api(base, 'POST', '/api/auth/sign-in', null, { email, password })) as { token: string }
-  return body.token
-}
-
-async function api(base: string, method: string, path: string, token: string | null, body?: unknown): Promise<unknown> {
-  const response = await fetch(base + path, {
-    method,
-    headers: { 'content-type': 'application/json', ...(token ? { authorization: `Bearer ${token}` } : {}) },
-    body: body === undefined ? undefined : JSON.stringify(body),
-  })
-  const text = await response.text()
-  if (!response.ok) throw new Error(`${method} ${path} answered ${response.status}: ${text.slice(0, 300)}`)
-  return text ? JSON.parse(text) : undefined
 }
 
 /** Migrates and seeds, then starts the server as `npm start` does (production mode, own process). */

@@ -17,6 +17,7 @@ import { Readable } from 'node:stream'
 import { pipeline } from 'node:stream/promises'
 import type { OutlineRecord, PuzzleRecord } from '../shared/schemas/studio'
 import { draftOf } from '../tests/helpers/studio'
+import { api, signIn } from './lib/bench-client'
 
 const ROOT = new URL('..', import.meta.url)
 const BODY_BYTES = Number(process.env.BENCH_UPLOAD_BYTES ?? 1024 ** 3)
@@ -68,7 +69,7 @@ async function benchDriver(driver: string, env: Record<string, string>): Promise
   const server = await startProcess(['server/index.ts'], { ...env, NODE_ENV: 'production', PORT: '0', LOG_LEVEL: 'silent', SIGN_IN_ATTEMPTS_PER_15_MIN: '1000' }, /running at (http:\/\/[^/\s]+)/)
   try {
     const base = server.match[1]!
-    const token = await signIn(base)
+    const token = await signIn(base, 'owner@gridcue.example', 'gridcue-demo')
     const channelId = ((await api(base, 'GET', '/api/channels', token)) as { id: number }[])[0]!.id
     const puzzle = (await api(base, 'POST', `/api/channels/${channelId}/puzzles`, token, draftOf('GT13', { title: `Bench upload (${driver})` }))) as PuzzleRecord
     const outline = (await api(base, 'POST', `/api/channels/${channelId}/puzzles/${puzzle.id}/outlines`, token, { name: 'Bench take' })) as OutlineRecord
@@ -167,21 +168,6 @@ function wavHeader(pcmBytes: number): Buffer {
 async function rssOf(child: ChildProcess): Promise<number> {
   const status = await readFile(`/proc/${child.pid}/status`, 'utf8')
   return Number(/VmRSS:\s+(\d+) kB/.exec(status)?.[1] ?? 0) * 1024
-}
-
-async function signIn(base: string): Promise<string> {
-  return ((await api(base, 'POST', '/api/auth/sign-in', null, { email: 'owner@gridcue.example', password: 'gridcue-demo' })) as { token: string }).token
-}
-
-async function api(base: string, method: string, path: string, token: string | null, body?: unknown): Promise<unknown> {
-  const response = await fetch(base + path, {
-    method,
-    headers: { 'content-type': 'application/json', ...(token ? { authorization: `Bearer ${token}` } : {}) },
-    body: body === undefined ? undefined : JSON.stringify(body),
-  })
-  const text = await response.text()
-  if (!response.ok) throw new Error(`${method} ${path} answered ${response.status}: ${text.slice(0, 300)}`)
-  return text ? JSON.parse(text) : undefined
 }
 
 function migrate(): Promise<void> {
