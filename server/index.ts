@@ -4,6 +4,7 @@ import { createDb, databaseAnswers } from './db/knex'
 import { startJobs } from './jobs'
 import { wordSources } from './jobs/word-sources'
 import { createLogger } from './logger'
+import { resumePlaybackPreparation } from './services/recordings'
 import { createStorage } from './storage'
 import { createEnginePool } from './workers/engine-pool'
 
@@ -25,7 +26,7 @@ const engine = createEnginePool({ ...config.engine, logger })
 const storage = createStorage(config.storage)
 // alignment jobs are worked here unless JOBS_IN_SERVER=false leaves them to `npm run worker` processes
 const jobs = startJobs({ url: config.db.url, workers: config.jobs.inServer ? config.jobs.workers : 0, db, logger, words: wordSources(storage) })
-const app = createApp({ db, config, logger, engine, jobs: jobs.queue })
+const app = createApp({ db, config, logger, engine, jobs: jobs.queue, storage })
 
 // Express 5 hands a listen error to this callback as well
 const server = app.listen(config.http.port, config.http.host, (error?: Error) => {
@@ -40,6 +41,8 @@ const server = app.listen(config.http.port, config.http.host, (error?: Error) =>
   // the app starts without its database and recovers when it comes: say so rather than leave it to the first 503
   void databaseAnswers(db, config.db.timeoutMs).then((up) => {
     if (!up) complain(`  The database is not answering yet: requests answer 503 until it is (/api/health reports it).\n`)
+    // conversions a stopped server was making start again (with the database away, at the next start)
+    else void resumePlaybackPreparation({ db, storage, logger }).catch((err: unknown) => logger.warn({ err }, 'conversions for playback could not resume'))
   })
 })
 

@@ -7,7 +7,12 @@ export type RecordingListRow = Omit<RecordingRow, 'peaks'> & { has_peaks: boolea
 
 type RecordingFields = Pick<RecordingRow, 'outline_id' | 'storage_key' | 'original_name' | 'mime' | 'kind' | 'duration_ms' | 'facts' | 'uploaded_by'> & {
   size_bytes: number
+  /** 'ready' when absent */
+  playback?: RecordingRow['playback']
 }
+
+/** What a browser-playable copy changes in the row: the file and what was read from it. */
+type PlayableCopy = Pick<RecordingRow, 'storage_key' | 'mime' | 'duration_ms' | 'facts'> & { size_bytes: number }
 
 const LIST_COLUMNS = [
   'recordings.id',
@@ -19,6 +24,8 @@ const LIST_COLUMNS = [
   'recordings.size_bytes',
   'recordings.duration_ms',
   'recordings.facts',
+  'recordings.playback',
+  'recordings.playback_note',
   'recordings.is_current',
   'recordings.uploaded_by',
   'recordings.created_at',
@@ -97,4 +104,24 @@ export function deleteRecording(db: Db, recordingId: number): Promise<string | u
 /** Stores peaks worked out from the file at `storageKey`, only while the row still holds that file; false otherwise. */
 export async function savePeaks(db: Db, recordingId: number, storageKey: string, peaks: Peaks): Promise<boolean> {
   return (await db('recordings').where({ id: recordingId, storage_key: storageKey }).update({ peaks: db.raw('?::jsonb', [JSON.stringify(peaks)]) })) > 0
+}
+
+/** Recordings whose browser-playable copy is still to be made (after a restart, those a stopped server was making). */
+export function listPreparing(db: Db): Promise<RecordingListRow[]> {
+  return listed(db).where('recordings.playback', 'preparing').orderBy('recordings.id')
+}
+
+/**
+ * Points the row at its browser-playable copy, only while it still holds the uploaded file `fromKey`;
+ * false when the recording was deleted meanwhile (the copy then belongs to nobody).
+ */
+export async function finishPlayback(db: Db, recordingId: number, fromKey: string, copy: PlayableCopy): Promise<boolean> {
+  const changed = await db('recordings')
+    .where({ id: recordingId, storage_key: fromKey })
+    .update({ ...copy, size_bytes: String(copy.size_bytes), facts: db.raw('?::jsonb', [JSON.stringify(copy.facts)]), playback: 'ready', playback_note: null })
+  return changed > 0
+}
+
+export async function failPlayback(db: Db, recordingId: number, fromKey: string, note: string): Promise<void> {
+  await db('recordings').where({ id: recordingId, storage_key: fromKey }).update({ playback: 'failed', playback_note: note })
 }

@@ -1,7 +1,7 @@
 import 'knex/types/tables'
 import type { Role } from '../../shared/schemas/auth'
 import type { Outline, OutlineBase, OutlineScript } from '../../shared/schemas/outline'
-import type { AlignmentMethod, AlignmentState, LineProposal, Peaks, RecordingKind } from '../../shared/schemas/recording'
+import type { AlignmentMethod, AlignmentState, LineProposal, Peaks, RecordingKind, RecordingPlayback } from '../../shared/schemas/recording'
 import type { PuzzleCheck, PuzzleRecord } from '../../shared/schemas/studio'
 
 export interface UserRow {
@@ -85,6 +85,10 @@ export interface RecordingRow {
   facts: Record<string, unknown>
   /** null until worked out after the upload */
   peaks: Peaks | null
+  /** whether browsers can play the stored file yet (server/services/playback.ts) */
+  playback: RecordingPlayback
+  /** why a conversion failed, for people */
+  playback_note: string | null
   is_current: boolean
   uploaded_by: number | null
   created_at: Date

@@ -20,27 +20,30 @@ const AUDIO_COPY_TARGETS: Record<string, { format: string; mime: string }> = {
 }
 
 /**
- * Writes a copy of the recording that every browser plays and can seek in, keeping the first video and
+ * How to make a copy of the recording that every browser plays and can seek in, keeping the first video and
  * audio stream. When the codecs already play, the streams are copied into a fresh container (`-c copy`):
  * that writes the duration and seek index a browser's recorder leaves out, in a fraction of a second.
  * Otherwise it transcodes, to H.264 video and AAC audio in MP4: the one pairing every browser engine
- * plays (Opus would be smaller, but older WebKit plays no WebM). The format is chosen here, whatever
- * outPath's extension says.
+ * plays (Opus would be smaller, but older WebKit plays no WebM). A transcode runs at about the length of
+ * the recording or longer, so callers do it after answering (see server/services/playback.ts).
  */
-export async function remuxForWeb(inPath: string, outPath: string, options: { signal?: AbortSignal } = {}): Promise<WebPlayableFile> {
+export async function planWebCopy(inPath: string, options: { signal?: AbortSignal } = {}): Promise<WebCopyPlan> {
   const { streams } = await ffprobeFile(inPath, options.signal)
   const videoCodec = streams.find((stream) => stream.type === 'video')?.codec
   const audioCodec = streams.find((stream) => stream.type === 'audio')?.codec
-  const plan = videoCodec ? videoPlan(videoCodec, audioCodec) : audioPlan(audioCodec)
+  return videoCodec ? videoPlan(videoCodec, audioCodec) : audioPlan(audioCodec)
+}
+
+/** Writes the planned copy; the format is the plan's, whatever outPath's extension says. */
+export async function writeWebCopy(inPath: string, outPath: string, plan: WebCopyPlan, options: { signal?: AbortSignal } = {}): Promise<void> {
   await runTool(
     'ffmpeg',
     ['-nostdin', '-v', 'error', '-y', '-i', inPath, '-map', '0:v:0?', '-map', '0:a:0?', '-sn', '-dn', ...plan.codecArgs, ...plan.formatArgs, outPath],
     { signal: options.signal, installHint: FFMPEG_INSTALL_HINT },
   )
-  return { mime: plan.mime, transcoded: plan.transcoded }
 }
 
-interface Plan extends WebPlayableFile {
+export interface WebCopyPlan extends WebPlayableFile {
   codecArgs: string[]
   formatArgs: string[]
 }
@@ -49,7 +52,7 @@ interface Plan extends WebPlayableFile {
 const MP4 = ['-movflags', '+faststart', '-f', 'mp4']
 const AAC = ['-c:a', 'aac', '-b:a', '160k']
 
-function videoPlan(videoCodec: string, audioCodec: string | undefined): Plan {
+function videoPlan(videoCodec: string, audioCodec: string | undefined): WebCopyPlan {
   if (WEBM_VIDEO.has(videoCodec) && (!audioCodec || WEBM_AUDIO.has(audioCodec))) {
     return { mime: 'video/webm', transcoded: false, codecArgs: ['-c', 'copy'], formatArgs: ['-f', 'webm'] }
   }
@@ -66,7 +69,7 @@ function videoPlan(videoCodec: string, audioCodec: string | undefined): Plan {
   }
 }
 
-function audioPlan(audioCodec: string | undefined): Plan {
+function audioPlan(audioCodec: string | undefined): WebCopyPlan {
   const copyTarget = audioCodec ? AUDIO_COPY_TARGETS[audioCodec] : undefined
   if (copyTarget) {
     const formatArgs = copyTarget.format === 'mp4' ? MP4 : ['-f', copyTarget.format]

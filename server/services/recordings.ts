@@ -1,7 +1,3 @@
-import { createReadStream } from 'node:fs'
-import { mkdtemp, rm, stat } from 'node:fs/promises'
-import { tmpdir } from 'node:os'
-import { join } from 'node:path'
 import type { Readable } from 'node:stream'
 import type { MediaLink, Peaks, Recording, RecordingUpdate } from '../../shared/schemas/recording'
 import { requireChannelAccess } from '../auth/channel-access'
@@ -9,15 +5,15 @@ import type { MediaTokens } from '../auth/media-tokens'
 import type { Db } from '../db/knex'
 import { findOutlineStamp } from '../db/outlines'
 import { findUserById } from '../db/users'
-import { deleteRecording, findPeaks, findRecording, insertRecording, listRecordings, makeCurrent, renameRecording, savePeaks, type RecordingListRow } from '../db/recordings'
+import { deleteRecording, findPeaks, findRecording, insertRecording, listPreparing, listRecordings, makeCurrent, renameRecording, savePeaks, type RecordingListRow } from '../db/recordings'
 import { HttpError, notFound } from '../errors'
 import type { AppLogger } from '../logger'
 import { computePeaks } from '../media/peaks'
-import { probeMedia, type MediaFacts } from '../media/probe'
-import { remuxForWeb } from '../media/remux'
+import { probeMedia } from '../media/probe'
 import { MediaToolError } from '../media/run-tool'
 import type { ByteRange, Storage } from '../storage'
 import type { StoredUpload } from '../uploads/receiver'
+import { playbackOnUpload, preparePlayback } from './playback'
 
 export interface RecordingDeps {
   db: Db
@@ -43,19 +39,20 @@ export async function recordingsOf({ db }: RecordingDeps, channelId: number, out
 
 /**
  * Files an uploaded recording under the take: reads its duration and streams, makes a browser-playable
- * copy when it needs one, and stores the row; whatever fails, the stored file goes again. The waveform
- * peaks are worked out after the answer, in a child process.
+ * copy when a quick one will do (a transcode is made after the answer: see ./playback), and stores the row;
+ * whatever fails, the stored files go again. The waveform peaks are worked out after the answer too.
  */
 export async function addRecording(deps: RecordingDeps, channelId: number, outlineId: number, upload: StoredUpload | undefined, user: Express.User): Promise<Recording> {
   if (!upload) throw new HttpError(400, 'no-file', 'Attach the recording as the form field "file".')
-  let kept = { key: upload.key, mime: upload.mime, sizeBytes: upload.sizeBytes }
+  let copyKey: string | undefined
   try {
     await requireOutline(deps.db, channelId, outlineId)
-    const { facts, playable } = await deps.storage.withLocalFile(upload.key, (path) => readMedia(deps.storage, path, upload))
-    if (playable) {
-      kept = playable
-      await upload.discard()
-    }
+    const { facts, playback } = await deps.storage.withLocalFile(upload.key, async (path) => {
+      const facts = await probeMedia(path)
+      return { facts, playback: await playbackOnUpload(deps.storage, path, upload.key, facts) }
+    })
+    const kept = playback.kind === 'copied' ? playback.copy : { key: upload.key, mime: upload.mime, sizeBytes: upload.sizeBytes, facts }
+    copyKey = playback.kind === 'copied' ? kept.key : undefined
     const id = await insertRecording(deps.db, {
       outline_id: outlineId,
       storage_key: kept.key,
@@ -63,50 +60,32 @@ export async function addRecording(deps: RecordingDeps, channelId: number, outli
       mime: kept.mime,
       kind: facts.kind,
       size_bytes: kept.sizeBytes,
-      duration_ms: facts.durationMs,
-      facts: facts.facts,
+      duration_ms: kept.facts.durationMs,
+      facts: kept.facts.facts,
       uploaded_by: user.id,
+      playback: playback.kind === 'transcode-later' ? 'preparing' : 'ready',
     })
+    if (copyKey) await upload.discard()
     const row = (await findRecording(deps.db, channelId, outlineId, id))!
-    void workOutPeaks(deps, row)
+    void afterUpload(deps, row)
     return toRecording(row)
   } catch (error) {
-    await Promise.all([upload.discard(), kept.key !== upload.key && deps.storage.remove(kept.key)])
+    await Promise.all([upload.discard(), copyKey !== undefined && deps.storage.remove(copyKey)])
     throw error instanceof MediaToolError && !error.message.includes('not installed')
       ? new HttpError(415, 'unreadable-media', `"${upload.originalName}" could not be read as audio or video. Nothing was kept.`)
       : error
   }
 }
 
-interface ReadMedia {
-  facts: MediaFacts
-  /** the browser-playable copy now in storage, when the upload needed one */
-  playable?: { key: string; mime: string; sizeBytes: number }
+/** What follows an upload's answer: the transcoded copy when one is due, then the waveform from the file that stays. */
+async function afterUpload(deps: RecordingDeps, row: RecordingListRow): Promise<void> {
+  const playable = row.playback === 'preparing' ? await preparePlayback(deps, row) : row
+  if (playable) await workOutPeaks(deps, playable)
 }
 
-/** Probes the uploaded file; when browsers can't play it as it is, stores a playable copy and probes that. */
-async function readMedia(storage: Storage, path: string, upload: StoredUpload): Promise<ReadMedia> {
-  const facts = await probeMedia(path)
-  if (!facts.needsRemux) return { facts }
-  const dir = await mkdtemp(join(tmpdir(), 'gridcue-remux-'))
-  try {
-    const out = join(dir, 'web')
-    const { mime } = await remuxForWeb(path, out)
-    const key = upload.key.replace(/\.[^./]+$/, `-web.${EXTENSIONS[mime] ?? 'bin'}`)
-    await storage.put(key, createReadStream(out), { contentType: mime })
-    return { facts: { ...(await probeMedia(out)), needsRemux: false }, playable: { key, mime, sizeBytes: (await stat(out)).size } }
-  } finally {
-    await rm(dir, { recursive: true, force: true })
-  }
-}
-
-const EXTENSIONS: Record<string, string> = {
-  'video/webm': 'webm',
-  'video/mp4': 'mp4',
-  'audio/webm': 'webm',
-  'audio/mp4': 'm4a',
-  'audio/mpeg': 'mp3',
-  'audio/flac': 'flac',
+/** Goes on with the copies a stopped server was making; called once as the server starts. */
+export async function resumePlaybackPreparation(deps: RecordingDeps): Promise<void> {
+  for (const row of await listPreparing(deps.db)) await afterUpload(deps, row)
 }
 
 /** Computes and stores a recording's peaks; a failure is logged, and the waveform stays "being worked out". */
@@ -180,6 +159,10 @@ export async function recordingFileByLink({ db, storage }: RecordingDeps, tokens
 }
 
 async function fileOf(storage: Storage, row: RecordingListRow): Promise<RecordingFile> {
+  if (row.playback === 'preparing') {
+    throw new HttpError(409, 'playback-preparing', 'This recording is still being converted into a file browsers can play. Try again in a few minutes.')
+  }
+  if (row.playback === 'failed') throw new HttpError(409, 'playback-failed', row.playback_note ?? "Browsers can't play this recording, and converting it failed.")
   // asked before the reply starts: a lost file (a store emptied by hand, a restore without its files) is a plain 404
   if ((await storage.size(row.storage_key)) === null) {
     throw new HttpError(404, 'file-missing', "The recording's file is missing from storage. Upload the recording again, or delete this entry.")
@@ -214,6 +197,8 @@ const toRecording = (row: RecordingListRow): Recording => ({
   durationMs: row.duration_ms,
   current: row.is_current,
   hasPeaks: row.has_peaks,
+  playback: row.playback,
+  ...(row.playback_note ? { playbackNote: row.playback_note } : {}),
   uploadedBy: row.uploader_name ?? 'a former member',
   uploadedAt: row.created_at.toISOString(),
 })

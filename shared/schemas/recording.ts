@@ -7,7 +7,8 @@
  *   PATCH  /recordings/:recordingId                        recording.edit  body RecordingUpdate → Recording
  *   DELETE /recordings/:recordingId                        recording.edit  → 204 (the file goes too)
  *   GET    /recordings/:recordingId/media                  recording.read  the file; Range → 206, bad range → 416;
- *                                                                          its stored file gone → 404
+ *                                                                          its stored file gone → 404; still being
+ *                                                                          made playable → 409
  *   GET    /recordings/:recordingId/media-link             recording.read  → MediaLink: a playback address a media element
  *                                                                          can use without the session's token
  *   GET    /recordings/:recordingId/peaks                  recording.read  → Peaks
@@ -28,6 +29,10 @@ import { text } from './text'
 const recordingKindSchema = z.enum(['audio', 'video'])
 export type RecordingKind = z.infer<typeof recordingKindSchema>
 
+/** ready: browsers play the stored file; preparing: a browser-playable copy is being made; failed: it couldn't be. */
+const recordingPlaybackSchema = z.enum(['ready', 'preparing', 'failed'])
+export type RecordingPlayback = z.infer<typeof recordingPlaybackSchema>
+
 export const recordingSchema = z.object({
   id: z.int(),
   outlineId: z.int(),
@@ -43,6 +48,9 @@ export const recordingSchema = z.object({
   current: z.boolean(),
   /** true once the waveform peaks are ready */
   hasPeaks: z.boolean(),
+  playback: recordingPlaybackSchema,
+  /** why a browser-playable copy couldn't be made, when it couldn't */
+  playbackNote: z.string().optional(),
   uploadedBy: z.string(),
   uploadedAt: z.iso.datetime({ offset: true }),
 })

@@ -32,7 +32,8 @@ export function useRecordingMedia({ channelId, outlineId, recording }: Recording
   const query = useQuery({
     queryKey: () => recordingKeys.mediaLink(toValue(channelId), toValue(outlineId), toValue(recording)?.id ?? 0),
     queryFn: ({ signal }) => getMediaLink(toValue(channelId), toValue(outlineId), toValue(recording)!.id, signal),
-    enabled: () => toValue(recording) !== null,
+    // a recording still being converted has nothing a browser plays yet
+    enabled: () => toValue(recording)?.playback === 'ready',
     staleTime: (q) => renewalDelay(q.state.data),
     refetchInterval: (q) => renewalDelay(q.state.data) || false,
   })

@@ -5,7 +5,7 @@ import type { Recording } from '@shared/schemas/recording'
 import { getPeaks, listRecordings, removeRecording, updateRecording } from '@/api/recordings'
 import { recordingKeys } from '@/api/queryKeys'
 
-/** While a recording's waveform is still being worked out on the server, the list is asked again this often. */
+/** While a recording is being converted or its waveform worked out on the server, the list is asked again this often. */
 const PEAKS_POLL_MS = 3000
 
 /** The take's recordings (newest first) and the current one. */
@@ -13,7 +13,8 @@ export function useRecordingList(channelId: MaybeRefOrGetter<number>, outlineId:
   const query = useQuery({
     queryKey: () => recordingKeys.byOutline(toValue(channelId), toValue(outlineId)),
     queryFn: ({ signal }) => listRecordings(toValue(channelId), toValue(outlineId), signal),
-    refetchInterval: (q) => (q.state.data?.some((r) => !r.hasPeaks) ? PEAKS_POLL_MS : false),
+    // a failed conversion gets no waveform: nothing more to wait for
+    refetchInterval: (q) => (q.state.data?.some((r) => !r.hasPeaks && r.playback !== 'failed') ? PEAKS_POLL_MS : false),
   })
   const current = computed<Recording | null>(() => query.data.value?.find((r) => r.current) ?? null)
   return { ...query, current }

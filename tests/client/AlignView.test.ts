@@ -25,6 +25,7 @@ function recording(overrides: Partial<Recording> = {}): Recording {
     durationMs: 60_000,
     current: true,
     hasPeaks: true,
+    playback: 'ready',
     uploadedBy: 'Ada Lane',
     uploadedAt: '2026-11-30T09:00:00.000Z',
     ...overrides,
@@ -150,6 +151,28 @@ describe('AlignView', { timeout: 20_000 }, () => {
     media().currentTime = 0
     media().dispatchEvent(new Event('loadedmetadata'))
     expect(media().currentTime).toBe(12)
+  })
+
+  it('should say a recording is being converted, ask no link for it meanwhile, and play it once it is ready', async () => {
+    const served = serve(outlineFor('PE01'), { recordings: [recording({ playback: 'preparing', hasPeaks: false })] })
+    await renderAt(App, ALIGN)
+    expect(await screen.findByText(/take-one\.webm is being converted into a file browsers can play/)).toBeInTheDocument()
+    expect(document.querySelector('audio')).toBeNull()
+    expect(served.links).toBe(0)
+
+    // the list is asked again while the conversion runs
+    api.use(http.get(apiPath('/channels/12/outlines/31/recordings'), () => HttpResponse.json([recording()])))
+    await vi.advanceTimersByTimeAsync(3500)
+    await vi.waitFor(() => expect(media().getAttribute('src')).toBe('/api/media/link-1'))
+    expect(screen.queryByText(/is being converted/)).toBeNull()
+  })
+
+  it('should say why a recording could not be made playable', async () => {
+    const note = "Browsers can't play this file as it was uploaded, and converting it failed: ffmpeg stopped."
+    const served = serve(outlineFor('PE01'), { recordings: [recording({ playback: 'failed', playbackNote: note, hasPeaks: false })] })
+    await renderAt(App, ALIGN)
+    expect(await screen.findByText(note)).toBeInTheDocument()
+    expect(served.links).toBe(0)
   })
 
   it('should cut the video at the playing position with keys and buttons, save the cut and undo it', async () => {

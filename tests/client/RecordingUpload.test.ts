@@ -25,6 +25,7 @@ function recording(overrides: Partial<Recording> = {}): Recording {
     durationMs: 60_000,
     current: true,
     hasPeaks: false,
+    playback: 'ready',
     uploadedBy: 'Ada Lane',
     uploadedAt: '2026-11-30T09:00:00.000Z',
     ...overrides,

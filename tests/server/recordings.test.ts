@@ -16,6 +16,8 @@ import { startFakeS3, type FakeS3 } from '../../scripts/fake-s3'
 import { MEDIA_LINK_TTL_SECONDS } from '../../server/auth/media-tokens'
 import { issueToken } from '../../server/auth/tokens'
 import { loadConfig } from '../../server/config'
+import { createLogger } from '../../server/logger'
+import { resumePlaybackPreparation } from '../../server/services/recordings'
 import { createStorage } from '../../server/storage'
 import { mediaLinkSchema, peaksSchema, recordingSchema, type Recording } from '../../shared/schemas/recording'
 import type { OutlineRecord } from '../../shared/schemas/studio'
@@ -32,7 +34,10 @@ let webm: Buffer
 let recorderWebm: Buffer
 let mp4Video: Buffer
 let silentVideo: Buffer
+let ac3Matroska: Buffer
 beforeAll(() => {
+  // AC-3 in Matroska: no browser engine plays either, so only a transcode makes it playable
+  ac3Matroska = ffmpegFile('mkv', ['-c:a', 'ac3'])
   silentVideo = ffmpegFile('mp4', ['-map', '1:v', '-c:v', 'libx264', '-pix_fmt', 'yuv420p'], { video: true })
   webm = ffmpegFile('webm', ['-c:a', 'libopus'])
   recorderWebm = ffmpegFile('webm', ['-c:a', 'libopus'], { streamed: true })
@@ -175,6 +180,36 @@ describe.each([
       const played = await api.as('editor').get(`${base()}/${recording.id}/media`).buffer(true)
       expect(played.status).toBe(200)
       expect(Number(played.headers['content-length'])).toBe(recording.sizeBytes)
+    })
+
+    it('should answer at once for a file only a transcode makes playable, as "preparing", then swap in the converted copy', async () => {
+      const recording = await uploaded(ac3Matroska, 'desk-recorder.mkv')
+      expect(recording.playback).toBe('preparing')
+      await expect.poll(async () => ((await api.as('editor').get(base())).body as Recording[])[0]?.playback, { timeout: 20_000 }).toBe('ready')
+      const [ready] = (await api.as('editor').get(base())).body as Recording[]
+      expect(ready).toMatchObject({ id: recording.id, kind: 'audio', mime: 'audio/mp4' })
+      expect(ready!.durationMs).toBeGreaterThanOrEqual(1950)
+      expect(ready!.durationMs).toBeLessThanOrEqual(2100)
+      const { storage_key } = (await api.db('recordings').where({ id: recording.id }).first('storage_key'))!
+      expect(storage_key).toMatch(/-web\.m4a$/)
+      // the uploaded file went once its copy was in place
+      expect(await store.objects()).toHaveLength(objectsBefore.length + 1)
+      const played = await api.as('editor').get(`${base()}/${recording.id}/media`).buffer(true)
+      expect(played.status).toBe(200)
+      expect(Number(played.headers['content-length'])).toBe(ready!.sizeBytes)
+      await expect.poll(async () => ((await api.as('editor').get(base())).body as Recording[])[0]?.hasPeaks, { timeout: 10_000 }).toBe(true)
+    })
+
+    it('should say why a conversion failed, and answer the player 409 with that, when a stopped server left one to resume', async () => {
+      const recording = await uploaded(WAV, 'lost.wav')
+      // as a server stopped mid-conversion leaves it, with the uploaded file lost meanwhile
+      await api.db('recordings').where({ id: recording.id }).update({ playback: 'preparing', storage_key: `recordings/${api.channelId}/gone.mkv` })
+      await resumePlaybackPreparation({ db: api.db, storage: createStorage(loadConfig().storage), logger: createLogger('silent') })
+      const [failed] = (await api.as('editor').get(base())).body as Recording[]
+      expect(failed).toMatchObject({ id: recording.id, playback: 'failed' })
+      expect(failed!.playbackNote).toMatch(/^Browsers can't play this file as it was uploaded, and converting it failed: /)
+      const played = await api.as('editor').get(`${base()}/${recording.id}/media`)
+      expect({ status: played.status, body: played.body }).toEqual({ status: 409, body: { code: 'playback-failed', message: failed!.playbackNote } })
     })
 
     it('should refuse a text file renamed to .wav with 415, by its content, keeping nothing', async () => {
