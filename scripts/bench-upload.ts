@@ -1,7 +1,7 @@
 /**
  * Upload benchmark (not a test): one 1 GB recording streamed to the server in its own process, against
  * real PostgreSQL, once per storage driver (local disk; S3 through the fake S3 server in a process of its
- * own). The body is generated as it is sent (a WAV header, then silence) with http.request + pipeline, so
+ * own, and a ceiling row: the S3 driver alone putting the same bytes into that server). The body is generated as it is sent (a WAV header, then silence) with http.request + pipeline, so
  * the client holds none of it. Prints MB/s from the first byte sent to the 201, and how much the server's
  * resident memory grew meanwhile (sampled every 50 ms from /proc, after a 20 MiB warm-up upload). Targets: ≥ 100 MB/s, ≤ 100 MB growth.
  * Needs DATABASE_URL (an empty database is migrated and seeded); `npm run bench:upload` provides one.
@@ -17,6 +17,7 @@ import { Readable } from 'node:stream'
 import { pipeline } from 'node:stream/promises'
 import type { OutlineRecord, PuzzleRecord } from '../shared/schemas/studio'
 import { draftOf } from '../tests/helpers/studio'
+import { s3Storage } from '../server/storage/s3'
 import { api, signIn } from './lib/bench-client'
 
 const ROOT = new URL('..', import.meta.url)
@@ -46,6 +47,8 @@ try {
   results.push(await benchDriver('disk', { STORAGE: 'disk', STORAGE_DIR: join(scratch, 'disk') }))
   const fake = await startProcess(['scripts/fake-s3.ts', join(scratch, 's3rver'), String(FAKE_S3_PORT), 'bench-recordings'], {}, /fake S3 \(s3rver\) at/)
   try {
+    // what the fake S3 server takes at best, with no app in front: the S3 driver's own put from this process
+    results.push(await fakeS3Ceiling())
     results.push(
       await benchDriver('s3 (fake S3 server, own process)', {
         STORAGE: 's3',
@@ -110,6 +113,24 @@ async function baseline(): Promise<Figures> {
     server.close()
     await rm(join(scratch, 'baseline'), { force: true })
   }
+}
+
+/** The same number of bytes put straight into the fake S3 server by the S3 driver, in this process: the ceiling the app's S3 uploads meet. */
+async function fakeS3Ceiling(): Promise<Figures> {
+  const storage = s3Storage({ endpoint: `http://127.0.0.1:${FAKE_S3_PORT}`, bucket: 'bench-recordings', region: 'us-east-1', credentials: { accessKeyId: 'S3RVER', secretAccessKey: 'S3RVER' } })
+  const chunk = Buffer.alloc(CHUNK)
+  const body = Readable.from(
+    (function* () {
+      for (let sent = 0; sent < BODY_BYTES; sent += CHUNK) yield sent + CHUNK <= BODY_BYTES ? chunk : chunk.subarray(0, BODY_BYTES - sent)
+    })(),
+  )
+  const rssBefore = process.memoryUsage.rss()
+  const started = performance.now()
+  await storage.put('ceiling/body.bin', body)
+  const seconds = (performance.now() - started) / 1000
+  const rssGrowth = process.memoryUsage.rss() - rssBefore
+  await storage.remove('ceiling/body.bin')
+  return { driver: 'ceiling: the S3 driver alone into the fake S3 server, no app', seconds, mbPerSecond: BODY_BYTES / MB / seconds, rssBeforeMb: rssBefore / MB, rssGrowthMb: rssGrowth / MB }
 }
 
 /** Streams a multipart body: the form head, a WAV header claiming the whole body, silence, the closing boundary. */
