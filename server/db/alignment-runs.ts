@@ -73,8 +73,20 @@ export async function reportProgress(db: Db, runId: number, progress: number): P
   return updated > 0
 }
 
-export async function runIsRunning(db: Db, runId: number): Promise<boolean> {
-  return (await db('alignment_runs').where({ id: runId, state: 'running' }).first('id')) !== undefined
+/** The working job's sign of life on its run; false once the run is no longer running. */
+export async function touchRun(db: Db, runId: number): Promise<boolean> {
+  return (await db('alignment_runs').where({ id: runId, state: 'running' }).update({ updated_at: db.fn.now() })) > 0
+}
+
+/**
+ * Fails the recording's running runs that gave no sign of life for `silentMs`: their worker died (a killed
+ * process runs no handler, and pg-boss only retries the job hours later, when it expires).
+ */
+export async function failSilentRuns(db: Db, recordingId: number, silentMs: number, error: string): Promise<void> {
+  await db('alignment_runs')
+    .where({ recording_id: recordingId, state: 'running' })
+    .andWhere('updated_at', '<', db.raw("now() - make_interval(secs => ?)", [silentMs / 1000]))
+    .update({ state: 'failed', error, updated_at: db.fn.now() })
 }
 
 export async function finishRun(db: Db, runId: number, result: { proposals: LineProposal[]; unplaced: number[] }): Promise<void> {

@@ -1,7 +1,7 @@
 import type { Db } from '../db/knex'
-import { reportProgress, runIsRunning } from '../db/alignment-runs'
+import { reportProgress, touchRun } from '../db/alignment-runs'
 
-/** How often a running job writes its progress and looks whether its run was cancelled. */
+/** How often a running job writes its progress (or a sign of life) and looks whether its run was cancelled. */
 const WATCH_INTERVAL_MS = 500
 
 export interface RunWatch {
@@ -27,7 +27,8 @@ export function watchRun(db: Db, runId: number, { intervalMs = WATCH_INTERVAL_MS
 
   const look = async () => {
     const fraction = latest
-    const running = fraction === written ? await runIsRunning(db, runId) : await reportProgress(db, runId, fraction)
+    // every tick touches the row, so a run whose worker died shows it by going silent (see failSilentRuns)
+    const running = fraction === written ? await touchRun(db, runId) : await reportProgress(db, runId, fraction)
     written = fraction
     if (!running) controller.abort(new Error('the run was cancelled'))
   }

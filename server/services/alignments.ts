@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto'
 import type { AlignmentMethod, AlignmentRun } from '../../shared/schemas/recording'
 import { captionWords, CaptionFileError } from '../captions/caption-words'
-import { cancelRun, deleteRun, findRun, insertRun, listRuns, type AlignmentRunSummaryRow } from '../db/alignment-runs'
+import { cancelRun, deleteRun, failSilentRuns, findRun, insertRun, listRuns, type AlignmentRunSummaryRow } from '../db/alignment-runs'
 import type { Db } from '../db/knex'
 import { findRecording } from '../db/recordings'
 import { HttpError, notFound } from '../errors'
@@ -39,14 +39,20 @@ export async function startAlignment(db: Db, queue: AlignmentQueue, path: Record
   return toAlignmentRun(run)
 }
 
+// A working job touches its run twice a second; a minute of silence means its worker is gone.
+const SILENT_RUN_MS = 60_000
+const WORKER_GONE = 'The alignment stopped: the process working on it ended unexpectedly. Start it again.'
+
 /** The recording's runs, newest first. */
 export async function alignmentsOf(db: Db, path: RecordingPath): Promise<AlignmentRun[]> {
   await requireRecording(db, path)
+  await failSilentRuns(db, path.recordingId, SILENT_RUN_MS, WORKER_GONE)
   return (await listRuns(db, path.recordingId)).map(toAlignmentRun)
 }
 
 export async function alignmentOf(db: Db, path: RecordingPath, runId: number): Promise<AlignmentRun> {
   await requireRecording(db, path)
+  await failSilentRuns(db, path.recordingId, SILENT_RUN_MS, WORKER_GONE)
   const run = await findRun(db, path.recordingId, runId)
   if (!run) throw notFound('Alignment run')
   return toAlignmentRun(run)

@@ -3,6 +3,7 @@
  * end, retries, cancels (queued and running, the child process gone), refusals. The caption files are
  * written by hand to the WebVTT format (W3C WebVTT §4: "WEBVTT" header, cues of `start --> end` and text).
  */
+import { randomUUID } from 'node:crypto'
 import { spawn } from 'node:child_process'
 import { readFileSync } from 'node:fs'
 import { afterAll, beforeEach, describe, expect, it } from 'vitest'
@@ -263,6 +264,28 @@ describe('GET …/alignments', () => {
     expect(list.body.map((r: AlignmentRun) => r.id)).toEqual([b.id, a.id])
     const other = await api.as('owner').get(`${runsPath(recordingId + 1000)}/${a.id}`)
     expect(other.status).toBe(404)
+  })
+})
+
+describe('a run whose worker died', () => {
+  it('should keep a working run alive by touching it, and fail one silent for a minute with a sentence', async () => {
+    const pids: number[] = []
+    recognise = sleepingChild(pids)
+    const working = (await api.as('owner').post(runsPath()).send({ method: 'audio' })).body as AlignmentRun
+    await waitFor(working.id, (run) => run.state === 'running')
+    // its job touches it every watch interval (100 ms here), so it never looks silent
+    const touched = async () => (await api.db('alignment_runs').where({ id: working.id }).first('updated_at'))!.updated_at.getTime()
+    const first = await touched()
+    await expect.poll(touched, { timeout: 2000 }).toBeGreaterThan(first)
+    await api.as('owner').delete(`${runsPath()}/${working.id}`)
+
+    // as a killed worker leaves its run: running, and not touched since
+    const [dead] = await api
+      .db('alignment_runs')
+      .insert({ recording_id: recordingId, method: 'audio', state: 'running', progress: 0.4, job_id: randomUUID(), updated_at: api.db.raw("now() - interval '61 seconds'") })
+      .returning('id')
+    const answered = await api.as('editor').get(`${runsPath()}/${dead!.id}`)
+    expect(answered.body).toMatchObject({ state: 'failed', error: 'The alignment stopped: the process working on it ended unexpectedly. Start it again.' })
   })
 })
 
