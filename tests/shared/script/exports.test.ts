@@ -90,8 +90,17 @@ describe('exports, checked by third-party parsers', () => {
       if (n.type !== 'cue') return
       expect(n.data.start).toBe(Math.round(captions[i].startTime * 1000))
       expect(n.data.end).toBe(Math.round(captions[i].endTime * 1000))
-      expect(n.data.text).toBe(decoded(captions[i]))
+      // SRT has no escapes: the title's tag-like "<test>" goes out with look-alike brackets (see the next test)
+      expect(n.data.text).toBe(decoded(captions[i]).replace('<test>', '‹test›'))
     })
+  })
+
+  test('toSrt => text a player would read as formatting (HTML-like tags, braced override codes; common practice) is shown as written', () => {
+    const tagged = applyEdit(outline, { op: 'editLineText', lineId: outline.lines[1]!.id, text: 'Put <i>this</i> here, {\\an8}on top, and <font color="red">red</font>; 3 < 5 and 7 > 2 stay.' })
+    const cues = parseSync(toSrt(tagged)).flatMap((n) => (n.type === 'cue' ? [n.data.text] : []))
+    const said = flat(cues.join(' '))
+    expect(said).toContain('Put ‹i›this‹/i› here, {an8}on top, and ‹font color="red"›red‹/font›; 3 < 5 and 7 > 2 stay.')
+    expect(said).not.toMatch(/<\/?[a-z]|\{\\/i)
   })
 
   test('toDescription => setter credit, link, then "m:ss Title" lines, the first at 0:00 (common practice)', () => {
