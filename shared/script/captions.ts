@@ -82,8 +82,9 @@ function splitLong(s: string): string[] {
 
 /** Two balanced rows when a cue is longer than one row. */
 function wrapRows(chunk: string): string[] {
-  if (chunk.length <= CAPTION_ROW_CHARS) return [chunk]
   const words = chunk.split(' ')
+  // one word longer than a row stays one row: splitting it at nothing would leave the second row empty
+  if (chunk.length <= CAPTION_ROW_CHARS || words.length === 1) return [chunk]
   let best = 1
   let bestScore = Infinity
   for (let k = 1; k < words.length; k++) {

@@ -10,13 +10,14 @@ import { srtTimestamp } from './timecode'
 
 export function toSrt(outline: Outline): string {
   return captionCues(outline)
-    .map((c, i) => `${i + 1}\n${srtTimestamp(c.startMs)} --> ${srtTimestamp(c.endMs)}\n${c.rows.map(shownAsWritten).join('\n')}\n`)
+    .map((c, i) => `${i + 1}\n${srtTimestamp(c.startMs)} --> ${srtTimestamp(c.endMs)}\n${shownAsWritten(c.rows.join('\n'))}\n`)
     .join('\n')
 }
 
 const TAG = /<(\/?[a-z][^<>]*)>/gi
 const OVERRIDE = /\{\\/g
 
-function shownAsWritten(row: string): string {
-  return row.replace(TAG, '‹$1›').replace(OVERRIDE, '{')
+/** A cue's text with tag-like text and override codes disarmed, a tag broken over its two rows too. */
+function shownAsWritten(text: string): string {
+  return text.replace(TAG, '‹$1›').replace(OVERRIDE, '{')
 }
