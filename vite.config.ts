@@ -14,7 +14,12 @@ export default defineConfig({
   resolve: { alias },
   // the API beside `npm run dev` listens on PORT, like the server itself
   server: { proxy: { '/api': `http://127.0.0.1:${process.env.PORT ?? 5180}` } },
-  build: { outDir: 'dist', chunkSizeWarningLimit: 800 },
+  build: {
+    outDir: 'dist',
+    chunkSizeWarningLimit: 800,
+    // the studio app, and the public episode page as an entry of its own (no PrimeVue, router or stores in it)
+    rolldownOptions: { input: { main: fileURLToPath(new URL('./index.html', import.meta.url)), episode: fileURLToPath(new URL('./episode.html', import.meta.url)) } },
+  },
   test: {
     projects: [
       {

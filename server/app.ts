@@ -6,6 +6,7 @@ import { fileURLToPath } from 'node:url'
 import express, { type Express, type Response } from 'express'
 import helmet from 'helmet'
 import { pinoHttp } from 'pino-http'
+import { episodeGrants } from './auth/episode-grants'
 import { mediaTokens } from './auth/media-tokens'
 import { createPassport } from './auth/passport'
 import type { Config } from './config'
@@ -14,10 +15,12 @@ import { createLogger, type AppLogger } from './logger'
 import { errorHandler, unknownRoute } from './middleware/error-handler'
 import { authEndpoints } from './routes/auth'
 import { channelEndpoints } from './routes/channels'
+import { episodeEndpoints } from './routes/episodes'
 import { endpointTable } from './routes/endpoint'
 import { healthEndpoints } from './routes/health'
 import { alignmentEndpoints } from './routes/alignments'
 import { outlineEndpoints } from './routes/outlines'
+import { pictureEndpoints } from './routes/pictures'
 import { puzzleEndpoints } from './routes/puzzles'
 import { recordingEndpoints } from './routes/recordings'
 import { createStorage, type Storage } from './storage'
@@ -75,6 +78,9 @@ export function createApp({ db, config, logger, engine, jobs, storage = createSt
   healthEndpoints(api, db)
   recordingEndpoints(api, { db, storage, logger, mediaTokens: mediaTokens(config.auth.jwtSecret) }, config)
   alignmentEndpoints(api, db, jobs)
+  pictureEndpoints(api, db)
+  // also the episode page's HTML route, outside /api: registered here, before the client's fallback below
+  episodeEndpoints(api, { db, storage, logger, grants: episodeGrants(config.auth.jwtSecret), clientDir })
   app.use('/api', unknownRoute)
 
   if (existsSync(clientDir)) {

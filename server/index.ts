@@ -1,6 +1,7 @@
 import { createApp } from './app'
 import { loadConfig } from './config'
 import { createDb, databaseAnswers } from './db/knex'
+import { demoEpisodePath } from './demo-episode'
 import { startJobs } from './jobs'
 import { wordSources } from './jobs/word-sources'
 import { createLogger } from './logger'
@@ -40,9 +41,17 @@ const server = app.listen(config.http.port, config.http.host, (error?: Error) =>
   say(`\n  Gridcue is running at http://${config.http.host}:${port}/\n`)
   // the app starts without its database and recovers when it comes: say so rather than leave it to the first 503
   void databaseAnswers(db, config.db.timeoutMs).then((up) => {
-    if (!up) complain(`  The database is not answering yet: requests answer 503 until it is (/api/health reports it).\n`)
+    if (!up) {
+      complain(`  The database is not answering yet: requests answer 503 until it is (/api/health reports it).\n`)
+      return
+    }
+    // a newcomer's first stop beside the studio: the page viewers read (only where the demo data is)
+    void demoEpisodePath(db).then(
+      (path) => path && say(`  Demo episode: http://${config.http.host}:${port}${path}\n`),
+      (err: unknown) => logger.warn({ err }, 'the demo episode could not be looked up'),
+    )
     // conversions a stopped server was making start again (with the database away, at the next start)
-    else void resumePlaybackPreparation({ db, storage, logger }).catch((err: unknown) => logger.warn({ err }, 'conversions for playback could not resume'))
+    void resumePlaybackPreparation({ db, storage, logger }).catch((err: unknown) => logger.warn({ err }, 'conversions for playback could not resume'))
   })
 })
 

@@ -1,5 +1,6 @@
 import 'knex/types/tables'
 import type { Role } from '../../shared/schemas/auth'
+import type { EpisodeVideoChoice, EpisodeVisibility } from '../../shared/schemas/episode'
 import type { Outline, OutlineBase, OutlineScript } from '../../shared/schemas/outline'
 import type { AlignmentMethod, AlignmentState, LineProposal, Peaks, RecordingKind, RecordingPlayback } from '../../shared/schemas/recording'
 import type { PuzzleCheck, PuzzleRecord } from '../../shared/schemas/studio'
@@ -115,6 +116,28 @@ export interface AlignmentRunRow {
   updated_at: Date
 }
 
+export interface EpisodeRow {
+  id: number
+  channel_id: number
+  outline_id: number
+  slug: string
+  title: string
+  visibility: EpisodeVisibility
+  /** when the episode appears; a future time schedules it */
+  publish_at: Date
+  description: string
+  video: EpisodeVideoChoice
+  /** the played recording; null for another kind of video, or once that recording was deleted */
+  recording_id: number | null
+  /** the take as published: the outline with the puzzle's title, setter and link of that moment */
+  snapshot: Outline
+  /** the take's updated_at when the snapshot was taken */
+  snapshot_updated_at: Date
+  published_at: Date
+  published_by: number | null
+  unpublished_at: Date | null
+}
+
 declare module 'knex/types/tables' {
   interface Tables {
     users: UserRow
@@ -124,5 +147,6 @@ declare module 'knex/types/tables' {
     outlines: OutlineRow
     recordings: RecordingRow
     alignment_runs: AlignmentRunRow
+    episodes: EpisodeRow
   }
 }

@@ -1,7 +1,7 @@
 import { ffprobeFile, FFMPEG_INSTALL_HINT } from './ffprobe'
 import { runTool } from './run-tool'
 
-export interface WebPlayableFile {
+interface WebPlayableFile {
   /** what to serve the new file as */
   mime: string
   /** false when the streams were only copied into a fresh container (fast, lossless) */

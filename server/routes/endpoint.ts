@@ -58,6 +58,26 @@ export class Media {
   ) {}
 }
 
+/**
+ * A file shown in place, not downloaded: a picture, a captions track. Express gives it an ETag from its
+ * content and answers a request that holds it already with 304.
+ */
+export class Inline {
+  constructor(
+    readonly mimeType: string,
+    readonly content: Buffer | string,
+    readonly cacheControl: string,
+  ) {}
+}
+
+/** An HTML page with its status (a page that says "not found" is still a page); revalidated by its ETag like Inline. */
+export class Page {
+  constructor(
+    readonly html: string,
+    readonly status: 200 | 404 = 200,
+  ) {}
+}
+
 type Schema = ZodType | undefined
 type Parsed<S extends Schema> = S extends ZodType ? z.output<S> : undefined
 
@@ -100,10 +120,22 @@ interface SignedInSpec<P extends string, Q extends Schema, B extends Schema, U e
   access: SignedInAccess<P>
 }
 
+interface PublicSpec<P extends string, Q extends Schema, B extends Schema> extends Spec<P, Q, B> {
+  /** read the caller's sign-in token when one is sent: the handler gets `user`, undefined for anyone else (a missing, expired or forged token alike) */
+  optionalUser?: boolean
+}
+
 interface PublicInput<P extends string, Q extends Schema, B extends Schema> {
   params: ParamValues<P>
   query: Parsed<Q>
   body: Parsed<B>
+  /** the signed-in caller, on an endpoint with `optionalUser` */
+  user?: Express.User
+}
+
+interface PageInput<P extends string, Q extends Schema> extends PublicInput<P, Q, undefined> {
+  /** the page's own origin as the request names it (`https://host`), for absolute links in its head */
+  origin: string
 }
 
 interface SignedInInput<P extends string, Q extends Schema, B extends Schema, U> extends PublicInput<P, Q, B> {
@@ -113,7 +145,7 @@ interface SignedInInput<P extends string, Q extends Schema, B extends Schema, U>
 }
 
 // what the table builds before the signatures of add/addPublic tie it to one endpoint
-type LooseSpec = Spec<string, Schema, Schema, Received>
+type LooseSpec = Spec<string, Schema, Schema, Received> & { optionalUser?: boolean }
 type LooseInput = PublicInput<string, Schema, Schema>
 
 /** What a handler returns: a JSON body, a Download, a Revalidated reply, Media, or nothing (204). */
@@ -138,8 +170,8 @@ export function endpointTable(app: Express, prefix: string, { db, passport }: { 
   const endpoints: EndpointInfo[] = []
   registries.set(app, endpoints)
 
-  function register(spec: LooseSpec, access: Access, handle: (req: Request, res: Response) => Promise<unknown>): void {
-    const path = prefix + spec.path
+  function register(spec: LooseSpec, access: Access, handle: (req: Request, res: Response) => Promise<unknown>, below = prefix): void {
+    const path = below + spec.path
     app.route(path)[spec.method](...(spec.before ?? []), async (req, res) => reply(req, res, await handle(req, res), spec.status))
     endpoints.push({ method: spec.method, path, access })
   }
@@ -169,16 +201,40 @@ export function endpointTable(app: Express, prefix: string, { db, passport }: { 
   }
 
   /** An endpoint anyone may call, signed in or not. */
-  function addPublic<P extends string, Q extends Schema = undefined, B extends Schema = undefined>(spec: Spec<P, Q, B>, handler: Handler<PublicInput<P, Q, B>>): void
+  function addPublic<P extends string, Q extends Schema = undefined, B extends Schema = undefined>(spec: PublicSpec<P, Q, B>, handler: Handler<PublicInput<P, Q, B>>): void
   function addPublic(spec: LooseSpec, handler: Handler<LooseInput>): void {
     const parse = inputParser(spec)
-    register(spec, 'public', (req) => handler(parse(req)))
+    register(spec, 'public', async (req, res) => handler({ ...parse(req), user: spec.optionalUser ? await optionalUser(passport, req, res) : undefined }))
   }
 
-  return { add, addPublic }
+  /** An HTML page anyone may open, below the site's root rather than the table's prefix; its handler returns a Page. */
+  function addPage<P extends string, Q extends Schema = undefined>(spec: PublicSpec<P, Q, undefined>, handler: Handler<PageInput<P, Q>>): void
+  function addPage(spec: LooseSpec, handler: Handler<PageInput<string, Schema>>): void {
+    const parse = inputParser(spec)
+    register(
+      spec,
+      'public',
+      async (req, res) =>
+        handler({ ...parse(req), body: undefined, user: spec.optionalUser ? await optionalUser(passport, req, res) : undefined, origin: `${req.protocol}://${req.get('host') ?? 'localhost'}` }),
+      '',
+    )
+  }
+
+  return { add, addPublic, addPage }
 }
 
 const channelParams = idParams('channelId')
+
+/** The signed-in caller when the request carries a good token; nobody (not a 401) when it carries none or a bad one. */
+async function optionalUser(passport: JwtPassport, req: Request, res: Response): Promise<Express.User | undefined> {
+  if (req.headers.authorization === undefined) return undefined
+  try {
+    return await signedInUser(passport, req, res)
+  } catch (error) {
+    if (error instanceof HttpError && error.status === 401) return undefined
+    throw error
+  }
+}
 
 const paramNames = (path: string): string[] => [...path.matchAll(/:(\w+)/g)].map(([, name]) => name ?? '')
 
@@ -209,6 +265,8 @@ async function reply(req: Request, res: Response, result: unknown, status = 200)
     else res.status(status).type('json').send(await result.json())
   } else if (result instanceof Download) res.type(result.mimeType).attachment(result.filename).send(result.content)
   else if (result instanceof Media) await sendMedia(req, res, result)
+  else if (result instanceof Inline) res.type(result.mimeType).set('Cache-Control', result.cacheControl).send(result.content)
+  else if (result instanceof Page) res.status(result.status).type('html').set('Cache-Control', 'no-cache').send(result.html)
   else if (result === undefined) res.status(204).end()
   else res.status(status).json(result)
 }

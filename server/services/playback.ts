@@ -15,7 +15,7 @@ import { probeMedia, type MediaFacts } from '../media/probe'
 import { planWebCopy, writeWebCopy, type WebCopyPlan } from '../media/remux'
 import type { Storage } from '../storage'
 
-export interface PlayableCopy {
+interface PlayableCopy {
   facts: MediaFacts
   key: string
   mime: string

@@ -19,16 +19,17 @@ import { z } from 'zod'
 import { cellSchema, stepSchema } from './step'
 import { text, webAddress } from './text'
 
-/** Lower-case words joined by single hyphens: safe in an address as it stands, readable aloud. */
+/** Lower-case words joined by single hyphens: safe in an address as it stands, readable aloud. @public */
 export const episodeSlugSchema = z
   .string()
   .max(80, { message: 'the address name can be at most 80 characters', abort: true })
   .regex(/^[a-z0-9]+(?:-[a-z0-9]+)*$/, 'the address name may hold only lower-case letters, digits and single hyphens (e.g. "thermo-tuesday-12")')
 
+/** @public */
 export const episodeVisibilitySchema = z.enum(['public', 'members'])
 export type EpisodeVisibility = z.infer<typeof episodeVisibilitySchema>
 
-/** What plays on the page: the take's uploaded recording, a video address of the channel's own, or nothing yet. */
+/** What plays on the page: the take's uploaded recording, a video address of the channel's own, or nothing yet. @public */
 export const episodeVideoChoiceSchema = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('recording'), recordingId: z.int().min(1) }),
   z.object({ kind: z.literal('external'), url: webAddress('video address').refine((u) => u !== '', 'give the video address') }),
@@ -36,6 +37,7 @@ export const episodeVideoChoiceSchema = z.discriminatedUnion('kind', [
 ])
 export type EpisodeVideoChoice = z.infer<typeof episodeVideoChoiceSchema>
 
+/** @public */
 export const EPISODE_DESCRIPTION_MAX = 5000
 
 export const episodePublishSchema = z.object({
@@ -49,7 +51,7 @@ export const episodePublishSchema = z.object({
 })
 export type EpisodePublish = z.infer<typeof episodePublishSchema>
 
-/** live: anyone allowed sees it; scheduled: its date is still to come; unpublished: taken down by the team. */
+/** live: anyone allowed sees it; scheduled: its date is still to come; unpublished: taken down by the team. @public */
 export const episodeStateSchema = z.enum(['live', 'scheduled', 'unpublished'])
 export type EpisodeState = z.infer<typeof episodeStateSchema>
 
@@ -79,7 +81,11 @@ export const episodeSchema = episodeSummarySchema.extend({
 })
 export type Episode = z.infer<typeof episodeSchema>
 
-/** One visible line of the published script, timed on the published video (from its cut-in). */
+/**
+ * One visible line of the published script, timed on the published video (from its cut-in). The page lists
+ * the lines in this order as its step list: the n-th line (1-based, the intro included) is item `step-n`.
+ * @public
+ */
 export const episodeLineSchema = z.object({
   id: z.int(),
   kind: z.enum(['intro', 'step', 'outro']),
@@ -90,9 +96,11 @@ export const episodeLineSchema = z.object({
 })
 export type EpisodeLine = z.infer<typeof episodeLineSchema>
 
+/** @public */
 export const episodeChapterSchema = z.object({ title: z.string(), startMs: z.int().min(0), lineId: z.int() })
+export type EpisodeChapter = z.infer<typeof episodeChapterSchema>
 
-/** How the page plays the video: a media element on our file or the channel's media file, or only a link. */
+/** How the page plays the video: a media element on our file or the channel's media file, or only a link. @public */
 export const episodePlayerSchema = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('media'), url: z.string(), mime: z.string(), audioOnly: z.boolean() }),
   z.object({ kind: z.literal('link'), url: z.string() }),
@@ -132,6 +140,14 @@ export const episodePageSchema = z.object({
   pictureUrl: z.string(),
 })
 export type EpisodePage = z.infer<typeof episodePageSchema>
+
+/**
+ * A playback grant for a members-only episode, in the query of its media, captions and picture addresses (a
+ * `<video>` or `<track>` can't send the session's token): the page API puts it there for a signed-in member.
+ */
+export const episodeAccessQuerySchema = z.object({
+  access: z.string().max(2048, { message: 'is too long to be a playback grant', abort: true }).optional(),
+})
 
 /** A grid picture: after which step, which shape, with or without the step's highlights. */
 export const pictureQuerySchema = z.object({

@@ -1,6 +1,7 @@
 import { z } from 'zod'
 import { outlineRecordSchema, outlineSummarySchema } from '@shared/schemas/studio'
 import type { OutlineCreate, OutlineRecord, OutlineSave, OutlineSummary } from '@shared/schemas/studio'
+import type { PictureQuery } from '@shared/schemas/episode'
 import { http, noContent } from './http'
 import { withStaleCheck } from './stale'
 
@@ -44,4 +45,10 @@ export function removeOutline(channelId: number, outlineId: number): Promise<voi
 /** The printable cue sheet (PDF), optionally with a grid thumbnail beside each line. */
 export function getCueSheet(channelId: number, outlineId: number, thumbnails: boolean): Promise<Blob> {
   return http.getBlob(`${channelBase(channelId)}/outlines/${outlineId}/cue-sheet.pdf?thumbnails=${thumbnails ? 1 : 0}`)
+}
+
+/** The grid after a step as a PNG (wide 1280×720 or square 1080×1080), with or without the step's highlights. */
+export function getGridPicture(channelId: number, outlineId: number, { step, shape, highlights }: PictureQuery): Promise<Blob> {
+  const query = new URLSearchParams({ step: String(step), shape, highlights })
+  return http.getBlob(`${channelBase(channelId)}/outlines/${outlineId}/picture.png?${query}`)
 }

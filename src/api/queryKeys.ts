@@ -24,3 +24,9 @@ export const recordingKeys = {
   run: (channelId: number, outlineId: number, recordingId: number, runId: number) =>
     ['channels', channelId, 'outlines', outlineId, 'recordings', recordingId, 'alignments', runId] as const,
 }
+
+/** The channel's episode list, and each take's own episode (null when never published). */
+export const episodeKeys = {
+  all: (channelId: number) => ['channels', channelId, 'episodes'] as const,
+  byOutline: (channelId: number, outlineId: number) => ['channels', channelId, 'outlines', outlineId, 'episode'] as const,
+}

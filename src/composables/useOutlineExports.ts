@@ -1,7 +1,9 @@
 import { ref } from 'vue'
 import { exportFileName, toDescription, toOutlineJson, toSrt, toWebVttCaptions, toWebVttChapters, type Outline } from '@shared/script'
+import { gridPictureFileName } from '@shared/picture/file-name'
+import type { PictureQuery } from '@shared/schemas/episode'
 import { isApiError } from '@/api/http'
-import { getCueSheet } from '@/api/outlines'
+import { getCueSheet, getGridPicture } from '@/api/outlines'
 import { saveFile } from '@/composables/fileDownload'
 
 export type ExportKind = 'vtt-chapters' | 'vtt-captions' | 'srt' | 'description' | 'json' | 'cue-sheet' | 'cue-sheet-grids'
@@ -35,17 +37,27 @@ interface Options {
   saveFirst: () => Promise<void>
 }
 
-/** Downloads an outline's exports: text formats are made here from the current document, the PDF by the server. */
+/** Downloads an outline's exports: text formats are made here from the current document, the PDF and grid pictures by the server. */
 export function useOutlineExports(options: Options) {
   const busy = ref(false)
   const error = ref<string | null>(null)
 
-  async function exportAs(kind: ExportKind): Promise<void> {
+  async function run(work: (doc: Outline) => Promise<void>): Promise<void> {
     const doc = options.outline()
     if (!doc || busy.value) return
     error.value = null
     busy.value = true
     try {
+      await work(doc)
+    } catch (e) {
+      error.value = isApiError(e) ? e.message : `The export failed: ${(e as Error).message}`
+    } finally {
+      busy.value = false
+    }
+  }
+
+  function exportAs(kind: ExportKind): Promise<void> {
+    return run(async (doc) => {
       if (kind === 'cue-sheet' || kind === 'cue-sheet-grids') {
         await options.saveFirst()
         const pdf = await getCueSheet(options.channelId(), options.outlineId(), kind === 'cue-sheet-grids')
@@ -54,12 +66,16 @@ export function useOutlineExports(options: Options) {
         const made = TEXT_EXPORTS[kind]
         saveFile(exportFileName(doc.title, options.take(), made.file), made.make(doc), made.type)
       }
-    } catch (e) {
-      error.value = isApiError(e) ? e.message : `The export failed: ${(e as Error).message}`
-    } finally {
-      busy.value = false
-    }
+    })
   }
 
-  return { busy, error, exportAs }
+  /** The grid as a picture; drawn from the puzzle and the path, which edits never change, so nothing is saved first. */
+  function downloadPicture(query: PictureQuery): Promise<void> {
+    return run(async (doc) => {
+      const png = await getGridPicture(options.channelId(), options.outlineId(), query)
+      saveFile(gridPictureFileName(doc.title, options.take(), query), png)
+    })
+  }
+
+  return { busy, error, exportAs, downloadPicture }
 }

@@ -1,7 +1,8 @@
 import { computed, toValue } from 'vue'
 import type { MaybeRefOrGetter } from 'vue'
-import { stateAt, TECHNIQUES } from '@shared/engine'
-import type { Puzzle, Step } from '@shared/engine'
+import { TECHNIQUES } from '@shared/engine'
+import type { Step } from '@shared/engine'
+import { boardAt, type BoardPicture } from '@shared/picture/board-at'
 import type { Outline } from '@shared/script'
 
 export interface ReplayHeader {
@@ -14,46 +15,21 @@ export interface ReplayHeader {
 }
 
 /**
- * What the grid shows at a replay position: the state after step k with that step's focus, reasons,
- * eliminations, placements and contradiction chain. State is rebuilt from the givens on every change;
- * the engine's replay costs microseconds, so there is no cache to keep in step with edits.
+ * What the grid shows at a replay position (the shared `boardAt`: the state after step k with that step's
+ * highlights), and the step's header. State is rebuilt from the givens on every change; the engine's replay
+ * costs microseconds, so there is no cache to keep in step with edits.
  */
 export function useReplay(outline: MaybeRefOrGetter<Outline | null>, step: MaybeRefOrGetter<number>) {
-  // Edits never touch the puzzle or the steps, so these keep their identity across edits and aren't rebuilt.
-  const puzzleDoc = computed(() => toValue(outline)?.puzzle ?? null)
-  const steps = computed<readonly Step[]>(() => toValue(outline)?.steps ?? [])
-  const puzzle = computed<Puzzle | null>(() => {
-    const p = puzzleDoc.value
-    if (!p) return null
-    return { title: '', givens: Array.from(p.givens, (ch) => (ch === '.' ? 0 : Number(ch))), thermometers: p.thermometers }
-  })
+  // Edits never touch the puzzle or the steps, so these keep their identity across edits and the board isn't rebuilt.
+  const puzzle = computed(() => toValue(outline)?.puzzle ?? null)
+  const steps = computed<Step[]>(() => toValue(outline)?.steps ?? [])
   const stuck = computed(() => toValue(outline)?.status === 'stuck')
   const k = computed(() => Math.min(Math.max(toValue(step), 0), steps.value.length))
   const current = computed<Step | null>(() => (k.value > 0 ? (steps.value[k.value - 1] ?? null) : null))
 
-  const board = computed(() => {
+  const board = computed<BoardPicture | null>(() => {
     const p = puzzle.value
-    if (!p) return null
-    const state = stateAt(p, steps.value, k.value)
-    const s = current.value
-    const atStop = stuck.value && k.value === steps.value.length
-    const empty: number[] = []
-    if (atStop) for (let c = 0; c < 81; c++) if (!state.digits[c]) empty.push(c)
-    return {
-      digits: state.digits,
-      givens: state.givens,
-      thermometers: p.thermometers,
-      candidates: state.candidates,
-      // Where the engine stopped, every empty cell shows what is left: that is where a person takes over.
-      marks: atStop ? empty : state.marks,
-      focus: s?.focus ?? [],
-      reasonCells: s?.reason.cells ?? [],
-      reasonHouses: s?.reason.houses ?? [],
-      reasonThermometers: s?.reason.thermometers ?? [],
-      eliminated: s?.eliminations ?? [],
-      placed: s?.placements.map((pl) => pl.cell) ?? [],
-      chain: s?.facts.kind === 'contradiction' ? [s.facts.cell, ...s.facts.chain.map((link) => link.cell)] : [],
-    }
+    return p ? boardAt({ puzzle: p, steps: steps.value, status: stuck.value ? 'stuck' : 'solved' }, k.value) : null
   })
 
   const header = computed<ReplayHeader | null>(() => {
@@ -70,4 +46,4 @@ export function useReplay(outline: MaybeRefOrGetter<Outline | null>, step: Maybe
 }
 
 /** Everything the grid draws at one replay position (GridBoard's props). */
-export type ReplayBoard = NonNullable<ReturnType<typeof useReplay>['board']['value']>
+export type ReplayBoard = BoardPicture

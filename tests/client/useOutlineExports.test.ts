@@ -91,4 +91,34 @@ describe('useOutlineExports', () => {
     expect(exports.busy.value).toBe(false)
     expect(downloads).toEqual([])
   })
+
+  it('should download the grid picture the server draws, named after the puzzle, take, step and shape', async () => {
+    const asked: string[] = []
+    // the eight bytes every PNG file opens with (PNG specification, section 5.2)
+    const png = new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a])
+    api.use(
+      http.get(apiPath('/channels/1/outlines/31/picture.png'), ({ request }) => {
+        asked.push(new URL(request.url).search)
+        return new HttpResponse(new Blob([png], { type: 'image/png' }), { headers: { 'Content-Type': 'image/png' } })
+      }),
+    )
+    const { exports, saveFirst } = setup()
+    await exports.downloadPicture({ step: 7, shape: 'square', highlights: 'off' })
+    expect(asked).toEqual(['?step=7&shape=square&highlights=off'])
+    expect(saveFirst).not.toHaveBeenCalled()
+    expect(downloads[0]!.name).toBe('project-euler-96-grid-01-first-take-grid-step-7-square-plain.png')
+    expect(new Uint8Array(await downloads[0]!.blob.arrayBuffer())).toEqual(png)
+  })
+
+  it('should show the server message when the step is out of range, and download nothing', async () => {
+    api.use(
+      http.get(apiPath('/channels/1/outlines/31/picture.png'), () =>
+        HttpResponse.json({ code: 'step-out-of-range', message: 'This take has 57 steps; pick a step from 0 to 57' }, { status: 400 }),
+      ),
+    )
+    const { exports } = setup()
+    await exports.downloadPicture({ step: 58, shape: 'wide', highlights: 'on' })
+    expect(exports.error.value).toBe('This take has 57 steps; pick a step from 0 to 57')
+    expect(downloads).toEqual([])
+  })
 })

@@ -39,8 +39,19 @@ const api = useApiSuite({
     played = await uploadedRecording(suite, outline.id)
     spare = await uploadedRecording(suite, outline.id)
     alignment = await recordingWithRun(suite.db, outline.id)
+    await publishedEpisode(suite, outline.id, played)
   },
 })
+
+/** The take published as a public episode playing the recording, so the episode's own and public routes have one to answer. */
+async function publishedEpisode(suite: ApiSuite, outlineId: number, recordingId: number): Promise<void> {
+  const body = { slug: EPISODE.episodeSlug, title: 'Matrix episode', visibility: 'public', description: '', video: { kind: 'recording', recordingId } }
+  const res = await suite.as('owner').put(`/api/channels/${suite.channelId}/outlines/${outlineId}/episode`, body)
+  if (res.status !== 200) throw new Error(`publishing the episode failed: ${res.status} ${JSON.stringify(res.body)}`)
+}
+
+// the published episode's public address
+const EPISODE = { channelSlug: 'marigold-logic', episodeSlug: 'matrix-episode' }
 
 /** An invented person who owns a channel of their own and is not in the demo channel. */
 async function ownerOfAnotherChannel(db: typeof api.db): Promise<typeof otherOwner> {
@@ -105,6 +116,7 @@ const ENDPOINTS: Record<string, Row> = {
   'GET /api/channels/:channelId/outlines/:outlineId': { access: 'outline.read' },
   'PATCH /api/channels/:channelId/outlines/:outlineId': { access: 'outline.edit', body: () => ({ version: outline.version, script: scriptOf(outline.outline) }) },
   'GET /api/channels/:channelId/outlines/:outlineId/cue-sheet.pdf': { access: 'outline.read' },
+  'GET /api/channels/:channelId/outlines/:outlineId/picture.png': { access: 'outline.read' },
   'POST /api/channels/:channelId/outlines/:outlineId/duplicate': { access: 'outline.create' },
   'DELETE /api/channels/:channelId/outlines/:outlineId': { access: 'outline.create' },
   'GET /api/channels/:channelId/outlines/:outlineId/recordings': { access: 'recording.read' },
@@ -121,6 +133,20 @@ const ENDPOINTS: Record<string, Row> = {
   'GET /api/channels/:channelId/outlines/:outlineId/recordings/:recordingId/alignments': { access: 'recording.read' },
   'GET /api/channels/:channelId/outlines/:outlineId/recordings/:recordingId/alignments/:runId': { access: 'recording.read' },
   'DELETE /api/channels/:channelId/outlines/:outlineId/recordings/:recordingId/alignments/:runId': { access: 'recording.edit' },
+  'GET /api/channels/:channelId/episodes': { access: 'episode.read' },
+  'GET /api/channels/:channelId/outlines/:outlineId/episode': { access: 'outline.read' },
+  'PUT /api/channels/:channelId/outlines/:outlineId/episode': {
+    access: 'episode.publish',
+    body: () => ({ slug: EPISODE.episodeSlug, title: 'Matrix episode again', visibility: 'members', description: 'Published again.', video: { kind: 'none' } }),
+  },
+  'DELETE /api/channels/:channelId/outlines/:outlineId/episode': { access: 'episode.publish' },
+  // public: the episode is public and live, so every caller reads it (members-only and drafts: tests/server/episodes.test.ts)
+  'GET /api/episodes/:channelSlug/:episodeSlug': { access: 'public', ids: () => EPISODE },
+  'GET /api/episodes/:channelSlug/:episodeSlug/media': { access: 'public', ids: () => EPISODE },
+  'GET /api/episodes/:channelSlug/:episodeSlug/captions.vtt': { access: 'public', ids: () => EPISODE },
+  'GET /api/episodes/:channelSlug/:episodeSlug/picture.png': { access: 'public', ids: () => EPISODE },
+  // the episode page's HTML, outside /api
+  'GET /episodes/:channelSlug/:episodeSlug': { access: 'public', ids: () => EPISODE },
 }
 
 const endpoints = await registeredEndpoints()
