@@ -4,3 +4,8 @@ export function safeRedirect(raw: unknown): string {
   if (raw === '/sign-in' || raw.startsWith('/sign-in?')) return '/'
   return raw
 }
+
+/** Pages the server serves outside this app (the public episode page): reached by a full page load, not the router. */
+export function isOutsideApp(path: string): boolean {
+  return path.startsWith('/episodes/')
+}

@@ -1,4 +1,4 @@
-import { beforeEach, describe, expect, it } from 'vitest'
+import { beforeEach, describe, expect, it, vi } from 'vitest'
 import { screen } from '@testing-library/vue'
 import userEvent from '@testing-library/user-event'
 import App from '@/App.vue'
@@ -67,6 +67,20 @@ describe('SignInView', () => {
     expect(router.currentRoute.value.fullPath).toBe('/no-such-page')
     expect(sent).toEqual([{ email: 'ada@example.test', password: 'correct horse' }])
     expect(useSessionStore().isSignedIn).toBe(true)
+  })
+
+  it('should load a members-only episode page in full after signing in: it is the server\'s page, not a route of the app', async () => {
+    answerSignIn(200, sessionFixture())
+    const assign = vi.spyOn(window.location, 'assign').mockImplementation(() => {})
+    try {
+      const { router } = await renderAt(App, '/sign-in?redirect=/episodes/marigold-logic/four-fevers%3Ft%3D90')
+      await signInWith('ada@example.test', 'correct horse')
+      await vi.waitFor(() => expect(assign).toHaveBeenCalledWith('/episodes/marigold-logic/four-fevers?t=90'))
+      expect(router.currentRoute.value.path).toBe('/sign-in')
+      expect(useSessionStore().isSignedIn).toBe(true)
+    } finally {
+      assign.mockRestore()
+    }
   })
 
   it('should say "E-mail or password is wrong" when the API refuses the credentials', async () => {
