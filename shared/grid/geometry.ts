@@ -46,6 +46,11 @@ export function cellName(cell: Cell): string {
   return `r${rowOf(cell) + 1}c${colOf(cell) + 1}`
 }
 
+/** "row 3, column 4": how a screen reader should say a cell (it spells "r3c4" out letter by letter). */
+export function cellSpokenName(cell: Cell): string {
+  return `row ${rowOf(cell) + 1}, column ${colOf(cell) + 1}`
+}
+
 /** Reads "r3c4" (either letter case) back into a cell index, or null when it is not a cell name. */
 export function parseCellName(s: string): Cell | null {
   const m = /^[rR]([1-9])[cC]([1-9])$/.exec(typeof s === 'string' ? s.trim() : '')

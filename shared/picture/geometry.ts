@@ -3,7 +3,7 @@
  * GridBoard and the server's grid pictures draw from these same numbers. Which cells make a row, column or
  * box, and what cells are called, come from the grid geometry in shared/grid.
  */
-import { cellName, colOf, HOUSES, houseIndex, rowOf } from '../grid'
+import { cellName, cellSpokenName, colOf, HOUSES, houseIndex, rowOf } from '../grid'
 import type { HouseRef } from '../grid'
 
 export const CELL = 100
@@ -17,13 +17,16 @@ export interface CellGeometry {
   y: number
   cx: number
   cy: number
+  /** "r3c4" */
   name: string
+  /** "row 3, column 4", for screen readers */
+  spokenName: string
 }
 
 export const CELLS: readonly CellGeometry[] = Array.from({ length: 81 }, (_, c) => {
   const x = colOf(c) * CELL
   const y = rowOf(c) * CELL
-  return { x, y, cx: x + CELL / 2, cy: y + CELL / 2, name: cellName(c) }
+  return { x, y, cx: x + CELL / 2, cy: y + CELL / 2, name: cellName(c), spokenName: cellSpokenName(c) }
 })
 
 /** The nine rows (houses 0..8), as plain arrays of cells. */

@@ -21,8 +21,8 @@ function boardProps(overrides: Partial<GridBoardProps> = {}): GridBoardProps {
 
 const renderBoard = (overrides: Partial<GridBoardProps> = {}) => render(GridBoard, { props: boardProps(overrides) })
 const grid = () => screen.getByRole('grid')
-/** The cell at row r, column c, found by its name ("r3c4, …"). */
-const cell = (r: number, c: number) => screen.getByRole('gridcell', { name: new RegExp(`^r${r}c${c},`) })
+/** The cell at row r, column c, found by its name ("row 3, column 4, …"). */
+const cell = (r: number, c: number) => screen.getByRole('gridcell', { name: new RegExp(`^row ${r}, column ${c},`) })
 
 // Drawing details that no cell name carries (shapes beside the tints, one text per cell) are counted by SVG
 // element; the overlays are aria-hidden, since the cell names already say what they show.
@@ -38,11 +38,11 @@ describe('GridBoard', () => {
     expect(within(named).getAllByRole('row')[2]).toContainElement(cell(3, 4))
   })
 
-  it('should name cells like "r3c4, given 7", telling givens from deduced digits, and draw the digits', () => {
+  it('should name cells like "row 3, column 4, 7, given", telling givens from deduced digits, and draw the digits', () => {
     renderBoard()
-    expect(cell(3, 4)).toHaveAccessibleName('r3c4, given 7')
-    expect(cell(1, 1)).toHaveAccessibleName('r1c1, 5')
-    expect(cell(9, 9)).toHaveAccessibleName('r9c9, empty')
+    expect(cell(3, 4)).toHaveAccessibleName('row 3, column 4, 7, given')
+    expect(cell(1, 1)).toHaveAccessibleName('row 1, column 1, 5')
+    expect(cell(9, 9)).toHaveAccessibleName('row 9, column 9, empty')
     expect(within(grid()).getByText('7')).toBeInTheDocument()
     expect(within(grid()).getByText('5')).toBeInTheDocument()
   })
@@ -52,8 +52,8 @@ describe('GridBoard', () => {
     candidates[cellIndex(3, 5)] = maskOf([1, 2, 5])
     renderBoard({ candidates, marks: [cellIndex(3, 5)] })
 
-    expect(cell(3, 5)).toHaveAccessibleName('r3c5, empty, candidates 1 2 5')
-    expect(cell(3, 6)).toHaveAccessibleName('r3c6, empty')
+    expect(cell(3, 5)).toHaveAccessibleName('row 3, column 5, empty, candidates 1 2 5')
+    expect(cell(3, 6)).toHaveAccessibleName('row 3, column 6, empty')
     // each digit of the text placed in its own spot of the cell's 3×3 pattern
     const marks = within(grid()).getByText('125')
     expect(marks.getAttribute('x')!.split(' ')).toHaveLength(3)
@@ -68,8 +68,8 @@ describe('GridBoard', () => {
     plain.unmount()
 
     renderBoard({ candidates, marks: [cellIndex(2, 2)], eliminated: [{ cell: cellIndex(2, 2), digits: [8] }, { cell: cellIndex(5, 5), digits: [3] }] })
-    expect(cell(2, 2)).toHaveAccessibleName('r2c2, empty, candidates 4 6, removes 8')
-    expect(cell(5, 5)).toHaveAccessibleName('r5c5, empty, removes 3')
+    expect(cell(2, 2)).toHaveAccessibleName('row 2, column 2, empty, candidates 4 6, removes 8')
+    expect(cell(5, 5)).toHaveAccessibleName('row 5, column 5, empty, removes 3')
     expect(within(grid()).getByText('8')).toBeInTheDocument()
     expect(within(grid()).getByText('3')).toBeInTheDocument()
     // one stroke across each removed candidate
@@ -81,9 +81,9 @@ describe('GridBoard', () => {
     const before = { path: shapes('path'), rect: shapes('rect') }
     await view.rerender(boardProps({ focus: [cellIndex(1, 2)], reasonCells: [cellIndex(1, 3)], reasonHouses: [{ kind: 'column', index: 8 }] }))
 
-    expect(cell(1, 2)).toHaveAccessibleName('r1c2, empty, focus')
-    expect(cell(1, 3)).toHaveAccessibleName('r1c3, empty, reason')
-    expect(cell(5, 9)).toHaveAccessibleName('r5c9, empty, reason')
+    expect(cell(1, 2)).toHaveAccessibleName('row 1, column 2, empty, focus')
+    expect(cell(1, 3)).toHaveAccessibleName('row 1, column 3, empty, reason')
+    expect(cell(5, 9)).toHaveAccessibleName('row 5, column 9, empty, reason')
     expect(screen.getAllByRole('gridcell', { name: /, reason$/ })).toHaveLength(10)
     // a hatch for each of the 1 + 9 reason cells; a ring inside the focus cell and one around the reason column
     expect(shapes('path') - before.path).toBe(10)
@@ -124,8 +124,8 @@ describe('GridBoard', () => {
     const view = renderBoard()
     const before = { line: shapes('line'), rect: shapes('rect') }
     await view.rerender(boardProps({ placed: [cellIndex(1, 1)], errorCells: [cellIndex(3, 4)] }))
-    expect(cell(1, 1)).toHaveAccessibleName('r1c1, 5, placed now')
-    expect(cell(3, 4)).toHaveAccessibleName('r3c4, given 7, problem')
+    expect(cell(1, 1)).toHaveAccessibleName('row 1, column 1, 5, placed now')
+    expect(cell(3, 4)).toHaveAccessibleName('row 3, column 4, 7, given, problem')
     expect(shapes('line') - before.line).toBe(1)
     expect(shapes('rect') - before.rect).toBe(1)
   })
@@ -186,8 +186,8 @@ describe('GridBoard', () => {
     fewer[cellIndex(9, 9)] = maskOf([1, 3])
     await view.rerender({ ...start, digits: Object.assign([...digits], { [cellIndex(5, 5)]: 2 }), candidates: fewer, focus: [cellIndex(9, 9)], placed: [cellIndex(5, 5)] })
 
-    expect(cell(5, 5)).toHaveAccessibleName('r5c5, 2, placed now')
-    expect(cell(9, 9)).toHaveAccessibleName('r9c9, empty, candidates 1 3, focus')
+    expect(cell(5, 5)).toHaveAccessibleName('row 5, column 5, 2, placed now')
+    expect(cell(9, 9)).toHaveAccessibleName('row 9, column 9, empty, candidates 1 3, focus')
     expect(within(grid()).getByText('2')).toBeInTheDocument()
     expect(within(grid()).getByText('13')).toBeInTheDocument()
     expect(within(grid()).queryByText('123')).not.toBeInTheDocument()
@@ -197,8 +197,8 @@ describe('GridBoard', () => {
 
     // And back: nothing stale is left behind.
     await view.rerender({ ...start, focus: [], placed: [] })
-    expect(cell(5, 5)).toHaveAccessibleName('r5c5, empty, candidates 1 2 3')
-    expect(cell(9, 9)).toHaveAccessibleName('r9c9, empty, candidates 1 2 3')
+    expect(cell(5, 5)).toHaveAccessibleName('row 5, column 5, empty, candidates 1 2 3')
+    expect(cell(9, 9)).toHaveAccessibleName('row 9, column 9, empty, candidates 1 2 3')
     expect(within(grid()).queryByText('2')).not.toBeInTheDocument()
     expect(within(grid()).getAllByText('123')).toHaveLength(2)
   })

@@ -11,7 +11,7 @@ import classic from '../fixtures/classic-puzzles.json'
 import { outlineFor, recordFor } from '../helpers/studio-outline'
 import { api, apiPath, http, HttpResponse } from './msw'
 import { renderAt, settle } from './render'
-import { createHarness, membership, saveSession, sessionFixture } from './support'
+import { createHarness, membership, saveSession, sessionFixture, spokenCell } from './support'
 
 const Shell = defineComponent({ render: () => h(RouterView) })
 const StandIn = defineComponent({ render: () => h('p', 'another screen') })
@@ -94,8 +94,8 @@ async function open(path: string, role: Membership['role'] = 'presenter') {
   const user = userEvent.setup({ advanceTimers: vi.advanceTimersByTime })
   const rendered = await renderAt(Shell, path, { harness: createHarness(withStandIns) })
   const grid = () => screen.getByRole('grid', { name: /^Puzzle grid/ })
-  const cell = (name: string) => within(grid()).getByRole('gridcell', { name: new RegExp(`^${name},`) })
-  const problemCells = () => within(grid()).queryAllByRole('gridcell', { name: /, problem$/ }).map((c) => c.getAttribute('aria-label')!.split(',')[0])
+  const cell = (name: string) => within(grid()).getByRole('gridcell', { name: new RegExp(`^${spokenCell(name)},`) })
+  const problemCells = () => within(grid()).queryAllByRole('gridcell', { name: /, problem$/ }).map((c) => c.getAttribute('aria-label')!.replace(/^row (\d), column (\d),.*$/, 'r$1c$2'))
   const button = (name: string | RegExp) => screen.getByRole('button', { name })
   /** Clicks a cell and types on the grid, as a presenter enters givens. */
   async function typeAt(name: string, keys: string) {
@@ -477,7 +477,7 @@ describe('PuzzleView', () => {
       expect(screen.getByLabelText('Title')).toHaveValue('Lantern Steps')
       expect(screen.getByLabelText('Setter')).toHaveValue('Oona Fairweather')
       expect(screen.getByLabelText('Givens as text')).toHaveValue(UNIQUE)
-      expect(cell('r1c3')).toHaveAccessibleName('r1c3, given 3')
+      expect(cell('r1c3')).toHaveAccessibleName('row 1, column 3, 3, given')
       expect(screen.getByRole('button', { name: /r1c1 → r2c2/ })).toBeVisible()
       expect(screen.getByText('Unsaved changes')).toBeVisible()
     })
@@ -529,7 +529,7 @@ describe('PuzzleView', () => {
     expect(screen.getByRole('button', { name: 'Download' })).toBeEnabled()
 
     // Keys on the grid change nothing.
-    await user.click(within(screen.getByRole('grid', { name: 'Puzzle grid' })).getByRole('gridcell', { name: /^r1c1,/ }))
+    await user.click(within(screen.getByRole('grid', { name: 'Puzzle grid' })).getByRole('gridcell', { name: /^row 1, column 1,/ }))
     await user.keyboard('9')
     expect(screen.getByLabelText('Givens as text')).toHaveValue(UNIQUE)
   })

@@ -47,3 +47,6 @@ export function createHarness(routeList: RouteRecordRaw[] = routes): Harness {
   queryClient.setDefaultOptions({ queries: { ...queryClient.getDefaultOptions().queries, retry: false } })
   return { router, pinia, queryClient }
 }
+
+/** "r3c4" as the grid's cells are named for screen readers: "row 3, column 4". */
+export const spokenCell = (name: string): string => name.replace(/^r(\d)c(\d)$/, 'row $1, column $2')

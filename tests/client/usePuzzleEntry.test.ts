@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest'
+import { spokenCell } from './support'
 import { screen, within } from '@testing-library/vue'
 import userEvent from '@testing-library/user-event'
 import { defineComponent, h, ref } from 'vue'
@@ -36,8 +37,8 @@ function renderEntry(editable = true) {
   renderComponent(Harness)
   const user = userEvent.setup()
   const grid = screen.getByRole('grid', { name: /^Puzzle grid/ })
-  const cell = (name: string) => within(grid).getByRole('gridcell', { name: new RegExp(`^${name},`) })
-  const selectedCell = () => within(grid).getByRole('gridcell', { selected: true }).getAttribute('aria-label')!.split(',')[0]
+  const cell = (name: string) => within(grid).getByRole('gridcell', { name: new RegExp(`^${spokenCell(name)},`) })
+  const selectedCell = () => within(grid).getByRole('gridcell', { selected: true }).getAttribute('aria-label')!.replace(/^row (\d), column (\d),.*$/, 'r$1c$2')
   const givensText = () => (screen.getByLabelText('Givens as text') as HTMLInputElement).value
   /** Each thermometer as the list reads it, bulb first. */
   const thermometers = () => screen.queryAllByRole('button', { name: /→/ }).map((b) => b.textContent!.replace(/^\d+/, '').trim())
@@ -66,7 +67,7 @@ describe('usePuzzleEntry', () => {
     await user.click(cell('r3c4'))
     await user.keyboard('7')
 
-    expect(cell('r3c4')).toHaveAccessibleName('r3c4, given 7')
+    expect(cell('r3c4')).toHaveAccessibleName('row 3, column 4, 7, given')
     expect(grid).toHaveAttribute('aria-activedescendant', cell('r3c4').id)
     expect(givensText().slice(18, 27)).toBe('...7.....')
   })
@@ -75,13 +76,13 @@ describe('usePuzzleEntry', () => {
     const { user, cell } = renderEntry()
     await user.click(cell('r5c5'))
     await user.keyboard('4{Backspace}')
-    expect(cell('r5c5')).toHaveAccessibleName('r5c5, empty')
+    expect(cell('r5c5')).toHaveAccessibleName('row 5, column 5, empty')
     await user.keyboard('6{Delete}')
-    expect(cell('r5c5')).toHaveAccessibleName('r5c5, empty')
+    expect(cell('r5c5')).toHaveAccessibleName('row 5, column 5, empty')
     await user.keyboard('{Control>}z{/Control}')
-    expect(cell('r5c5')).toHaveAccessibleName('r5c5, given 6')
+    expect(cell('r5c5')).toHaveAccessibleName('row 5, column 5, 6, given')
     await user.keyboard('0')
-    expect(cell('r5c5')).toHaveAccessibleName('r5c5, empty')
+    expect(cell('r5c5')).toHaveAccessibleName('row 5, column 5, empty')
   })
 
   it('should fill the grid from a pasted 81-character string, with line breaks allowed', async () => {
@@ -90,8 +91,8 @@ describe('usePuzzleEntry', () => {
     await user.paste(WIKI1_ROWS.join('\n'))
 
     expect(givensText()).toBe(WIKI1)
-    expect(cell('r1c1')).toHaveAccessibleName('r1c1, given 5')
-    expect(cell('r9c9')).toHaveAccessibleName('r9c9, given 9')
+    expect(cell('r1c1')).toHaveAccessibleName('row 1, column 1, 5, given')
+    expect(cell('r9c9')).toHaveAccessibleName('row 9, column 9, 9, given')
   })
 
   it('should refuse a paste that is not 81 grid characters, and say why', async () => {
@@ -109,12 +110,12 @@ describe('usePuzzleEntry', () => {
     await user.clear(field)
     await user.type(field, `${'x'.repeat(81)}{Enter}`)
     expect(field).toHaveAccessibleDescription("Use 81 characters: 1-9 for a given, '.' or 0 for an empty cell.")
-    expect(cell('r1c1')).toHaveAccessibleName('r1c1, empty')
+    expect(cell('r1c1')).toHaveAccessibleName('row 1, column 1, empty')
 
     await user.clear(field)
     await user.type(field, `${WIKI1}{Enter}`)
     expect(field).toHaveAccessibleDescription("81 characters, row by row; '.' for an empty cell.")
-    expect(cell('r1c2')).toHaveAccessibleName('r1c2, given 3')
+    expect(cell('r1c2')).toHaveAccessibleName('row 1, column 2, 3, given')
   })
 
   it('should draw a thermometer through touching cells with the bulb where the drag started', async () => {

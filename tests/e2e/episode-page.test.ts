@@ -63,12 +63,12 @@ async function publishEpisode(base: string): Promise<{ pageUrl: string; data: Ep
   return { pageUrl: `${base}${episode.pageUrl}`, data }
 }
 
-/** Digits on the grid by cell, read from the cells' accessible names ("r3c4, given 7", "r1c6, 3, placed now"). */
+/** Digits on the grid by cell, read from the cells' accessible names ("row 3, column 4, 7, given", "row 1, column 6, 3, placed now"). */
 async function gridDigits(page: Page): Promise<Map<number, number>> {
   const names = await page.getByRole('gridcell').evaluateAll((cells) => cells.map((c) => c.getAttribute('aria-label') ?? ''))
   const digits = new Map<number, number>()
   names.forEach((name) => {
-    const m = /^r(\d)c(\d), (?:given )?(\d)/.exec(name)
+    const m = /^row (\d), column (\d), (\d)/.exec(name)
     if (m) digits.set((Number(m[1]) - 1) * 9 + Number(m[2]) - 1, Number(m[3]))
   })
   return digits
@@ -82,7 +82,8 @@ function laterDigits(data: EpisodePage, shown: Map<number, number>, k: number): 
   return [...shown.keys()].filter((c) => !allowed.has(c))
 }
 
-const cellName = (c: number) => `r${Math.floor(c / 9) + 1}c${(c % 9) + 1}`
+/** How the grid names a cell for screen readers. */
+const cellSpokenName = (c: number) => `row ${Math.floor(c / 9) + 1}, column ${(c % 9) + 1}`
 const currentTime = (page: Page) => page.evaluate(() => document.querySelector('video')!.currentTime)
 
 /** The whole visit of an anonymous viewer at one window size; returns the page for layout checks. */
@@ -95,13 +96,13 @@ async function visit(browser: Browser, pageUrl: string, data: EpisodePage, viewp
   const lineIndex = data.lines.findIndex((l) => l.steps.some((s) => data.steps[s]!.placements.length > 0))
   const line = data.lines[lineIndex]!
   const placed = data.steps[line.steps[0]!]!.placements[0]!
-  const target = page.getByRole('gridcell', { name: new RegExp(`^${cellName(placed.cell)},`) })
-  expect(await target.getAttribute('aria-label')).toMatch(new RegExp(`^${cellName(placed.cell)}, empty`))
+  const target = page.getByRole('gridcell', { name: new RegExp(`^${cellSpokenName(placed.cell)},`) })
+  expect(await target.getAttribute('aria-label')).toMatch(new RegExp(`^${cellSpokenName(placed.cell)}, empty`))
 
   // play (after a click on the page: a browser lets media play with sound only after the viewer has acted)
   await page.getByRole('heading', { level: 1 }).click()
   await page.evaluate(() => document.querySelector('video')!.play())
-  await page.getByRole('gridcell', { name: new RegExp(`^${cellName(placed.cell)}, ${placed.digit}`) }).waitFor({ timeout: 15_000 })
+  await page.getByRole('gridcell', { name: new RegExp(`^${cellSpokenName(placed.cell)}, ${placed.digit}`) }).waitFor({ timeout: 15_000 })
   // the grid changed at the step's time, not before it (timeupdate comes every quarter second or so)
   expect(await currentTime(page)).toBeGreaterThanOrEqual(line.startMs / 1000)
   await page.evaluate(() => document.querySelector('video')!.pause())

@@ -21,11 +21,13 @@ function risingPath(givens: string, solution: string): number[] {
 }
 
 const cellName = (c: number) => `r${Math.floor(c / 9) + 1}c${(c % 9) + 1}`
+/** How the grid names a cell for screen readers. */
+const cellSpokenName = (c: number) => `row ${Math.floor(c / 9) + 1}, column ${(c % 9) + 1}`
 
 const suite = useBrowserSuite()
 
 async function centreOf(page: Page, cell: number) {
-  const box = await page.getByRole('gridcell', { name: new RegExp(`^${cellName(cell)},`) }).first().boundingBox()
+  const box = await page.getByRole('gridcell', { name: new RegExp(`^${cellSpokenName(cell)},`) }).first().boundingBox()
   if (!box) throw new Error(`cell ${cellName(cell)} is not on screen`)
   return { x: box.x + box.width / 2, y: box.y + box.height / 2 }
 }

@@ -2,7 +2,7 @@ import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest'
 import { render, screen, within } from '@testing-library/vue'
 import userEvent from '@testing-library/user-event'
 import { TECHNIQUES } from '@shared/engine'
-import { cellName } from '@shared/grid'
+import { cellName, cellSpokenName } from '@shared/grid'
 import type { EpisodePage } from '@shared/schemas/episode'
 import EpisodeScreen from '@/episode/components/EpisodeScreen.vue'
 import { solveAlongKey } from '@/episode/composables/useSolveAlong'
@@ -19,7 +19,7 @@ function renderScreen(data: EpisodePage = page) {
 }
 
 const items = () => within(screen.getByRole('region', { name: 'Steps' })).queryAllByRole('listitem')
-const cell = (c: number) => screen.getByRole('gridcell', { name: new RegExp(`^${cellName(c)},`) })
+const cell = (c: number) => screen.getByRole('gridcell', { name: new RegExp(`^${cellSpokenName(c)},`) })
 const video = () => document.querySelector('video')!
 
 /** The media element reports a time, as a playing video does a few times a second. */
@@ -37,7 +37,7 @@ function laterDigitsOnGrid(k: number): string[] {
   return screen
     .getAllByRole('gridcell')
     .map((el) => el.getAttribute('aria-label')!)
-    .filter((name, c) => !allowed.has(c) && /^r\dc\d, (given )?\d/.test(name))
+    .filter((name, c) => !allowed.has(c) && /^row \d, column \d, \d/.test(name))
 }
 
 beforeEach(() => {
@@ -51,13 +51,13 @@ describe('EpisodeScreen: following playback', () => {
     renderScreen()
     const line = page.lines[FIRST_PLACEMENT]!
     await playTo(line.startMs - 100)
-    expect(cell(firstPlaced.cell)).toHaveAccessibleName(`${cellName(firstPlaced.cell)}, empty`)
+    expect(cell(firstPlaced.cell)).toHaveAccessibleName(`${cellSpokenName(firstPlaced.cell)}, empty`)
     expect(items()[FIRST_PLACEMENT]).not.toHaveAttribute('aria-current')
 
     await playTo(line.startMs + 100)
     expect(items()[FIRST_PLACEMENT]).toHaveAttribute('aria-current', 'step')
     expect(items().filter((li) => li.hasAttribute('aria-current'))).toHaveLength(1)
-    expect(cell(firstPlaced.cell)).toHaveAccessibleName(new RegExp(`^${cellName(firstPlaced.cell)}, ${firstPlaced.digit}, placed now`))
+    expect(cell(firstPlaced.cell)).toHaveAccessibleName(new RegExp(`^${cellSpokenName(firstPlaced.cell)}, ${firstPlaced.digit}, placed now`))
   })
 
   it('should seek the video to a step\'s start when the step is picked, and follow it at once', async () => {
@@ -112,7 +112,7 @@ describe('EpisodeScreen: solve-along', () => {
     await user.click(screen.getByRole('button', { name: /^Nudge/ }))
     expect(screen.getByText('Look at box 2.')).toBeInTheDocument()
     expect(screen.queryByText('What kind of step')).not.toBeInTheDocument()
-    expect(cell(firstPlaced.cell)).toHaveAccessibleName(`${cellName(firstPlaced.cell)}, empty, reason`)
+    expect(cell(firstPlaced.cell)).toHaveAccessibleName(`${cellSpokenName(firstPlaced.cell)}, empty, reason`)
     expect(laterDigitsOnGrid(0)).toEqual([])
 
     // 2: what kind of deduction, in plain words
@@ -125,7 +125,7 @@ describe('EpisodeScreen: solve-along', () => {
     await user.click(screen.getByRole('button', { name: /^Nudge/ }))
     expect(screen.getByText(`${cellName(firstPlaced.cell)} = ${firstPlaced.digit}`)).toBeInTheDocument()
     expect(screen.getByText(page.lines[FIRST_PLACEMENT]!.text)).toBeInTheDocument()
-    expect(cell(firstPlaced.cell)).toHaveAccessibleName(new RegExp(`^${cellName(firstPlaced.cell)}, ${firstPlaced.digit}`))
+    expect(cell(firstPlaced.cell)).toHaveAccessibleName(new RegExp(`^${cellSpokenName(firstPlaced.cell)}, ${firstPlaced.digit}`))
     expect(laterDigitsOnGrid(1)).toEqual([])
     expect(screen.queryByRole('button', { name: /^Nudge/ })).not.toBeInTheDocument()
 
