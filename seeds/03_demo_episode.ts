@@ -1,6 +1,6 @@
 // The demo channel's published episode: the thermometer take from 02_demo_puzzles published as a public
-// episode, with a short recording of its first lines (espeak-ng's voice, encoded by ffmpeg) aligned to them,
-// so a newcomer sees the whole job. Without espeak-ng, sox or ffmpeg the episode is published without a
+// episode, with a recording of the take (espeak-ng's voice saying every visible line, encoded by ffmpeg)
+// aligned to it, so a newcomer sees the whole job: the page's grid follows the voice to the last digit. Without espeak-ng, sox or ffmpeg the episode is published without a
 // recording, at estimated times, and a line says why. Skipped once the episode exists.
 import { execFileSync } from 'node:child_process'
 import { randomUUID } from 'node:crypto'
@@ -29,8 +29,6 @@ import { DEMO_PUZZLES } from './02_demo_puzzles'
 
 export const DEMO_EPISODE = { slug: DEMO_EPISODE_ADDRESS.episodeSlug, title: 'Four Fevers, one thermometer at a time' }
 
-/** How many of the take's first visible lines the demo recording says: enough to see the grid follow, quick to make. */
-const SPOKEN_LINES = 5
 const WORDS_PER_MINUTE = 170
 const PAUSE_MS = 700
 // as the server's own waveforms (server/services/recordings.ts)
@@ -54,7 +52,7 @@ export async function seed(knex: Knex, storage?: Storage): Promise<void> {
   const user = { id: editor.id, email: editor.email, name: editor.name }
   const outline = outlineOf(take)
 
-  const voice = await recordFirstLines(storage, channel.id, outline).catch((error: unknown) => {
+  const voice = await recordTheTake(storage, channel.id, outline).catch((error: unknown) => {
     console.log(`[gridcue] the demo episode is published without a recording, at estimated times: ${reasonOf(error)}`)
     return null
   })
@@ -78,12 +76,12 @@ export async function seed(knex: Knex, storage?: Storage): Promise<void> {
 }
 
 /**
- * Speaks the take's first visible lines and stores the recording: what its row holds, its waveform, where
+ * Speaks every visible line of the take and stores the recording: what its row holds, its waveform, where
  * each spoken line starts in it (the generator knows to the sample), and how to remove it again.
  */
-async function recordFirstLines(given: Storage | undefined, channelId: number, outline: Outline) {
+async function recordTheTake(given: Storage | undefined, channelId: number, outline: Outline) {
   const storage = given ?? createStorage(loadConfig().storage)
-  const said = outline.lines.filter((l) => !l.hidden).slice(0, SPOKEN_LINES)
+  const said = outline.lines.filter((l) => !l.hidden)
   const spoken = speak({ utterances: said.map((l) => ({ lineId: l.id, text: l.text, pauseMs: PAUSE_MS })), absent: [] }, WORDS_PER_MINUTE, CACHE_DIR)
   const file = webAudioOf(spoken)
   const [probed, peaks] = await Promise.all([probeMedia(file), computePeaks(file, { perSecond: PEAKS_PER_SECOND })])
@@ -101,7 +99,7 @@ async function recordFirstLines(given: Storage | undefined, channelId: number, o
   return { row, peaks, discard: () => storage.remove(key), starts: new Map(spoken.spoken.flatMap((u) => (u.lineId === null ? [] : [[u.lineId, u.startMs] as const]))) }
 }
 
-/** The outline with the spoken lines aligned where they are said; the lines after them keep their estimates. */
+/** The outline with every spoken line aligned where it is said. */
 function alignedTo(outline: Outline, starts: ReadonlyMap<number, number>): Outline {
   return { ...outline, lines: outline.lines.map((l) => (starts.has(l.id) ? { ...l, alignedStartMs: starts.get(l.id)! } : l)) }
 }

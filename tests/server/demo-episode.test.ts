@@ -39,7 +39,7 @@ async function demoTake() {
 }
 
 describe('seeds/03_demo_episode', { timeout: 60_000 }, () => {
-  it.runIf(mediaTools)('should publish a public episode whose first lines are aligned to a playable recording of them', async () => {
+  it.runIf(mediaTools)('should publish a public episode whose every line is aligned to a playable recording of it', async () => {
     await seedEpisode(api.db, storage())
 
     const res = await request(api.app).get(PAGE)
@@ -48,12 +48,12 @@ describe('seeds/03_demo_episode', { timeout: 60_000 }, () => {
     expect(page.episode).toMatchObject({ title: DEMO_EPISODE.title, visibility: 'public' })
     expect(page.puzzle).toMatchObject({ title: 'Four Fevers', setter: 'Ilse Marchetti' })
 
-    // the spoken lines carry their true starts, the rest their estimates: the page says its times are estimated
+    // every visible line carries its true start in the recording: the page's times are the recording's
     const take = await demoTake()
     const aligned = take.lines.filter((l) => l.alignedStartMs !== undefined)
-    expect(aligned.map((l) => l.id)).toEqual(take.lines.filter((l) => !l.hidden).slice(0, 5).map((l) => l.id))
-    expect(timeline(take).source).toBe('mixed')
-    expect(page.timing).toBe('estimated')
+    expect(aligned.map((l) => l.id)).toEqual(take.lines.filter((l) => !l.hidden).map((l) => l.id))
+    expect(timeline(take).source).toBe('aligned')
+    expect(page.timing).toBe('aligned')
     const pageStart = new Map(page.lines.map((l) => [l.id, l.startMs]))
     for (const line of aligned) expect(pageStart.get(line.id)).toBe(line.alignedStartMs)
     expect(aligned[0]!.alignedStartMs).toBeGreaterThanOrEqual(700)
