@@ -78,9 +78,9 @@ export function createApp({ db, config, logger, engine, jobs, storage = createSt
   healthEndpoints(api, db)
   recordingEndpoints(api, { db, storage, logger, mediaTokens: mediaTokens(config.auth.jwtSecret) }, config)
   alignmentEndpoints(api, db, jobs)
-  pictureEndpoints(api, db)
+  pictureEndpoints(api, db, engine)
   // also the episode page's HTML route, outside /api: registered here, before the client's fallback below
-  episodeEndpoints(api, { db, storage, logger, grants: episodeGrants(config.auth.jwtSecret), clientDir })
+  episodeEndpoints(api, { db, storage, logger, grants: episodeGrants(config.auth.jwtSecret), exports: engine, clientDir })
   app.use('/api', unknownRoute)
 
   if (existsSync(clientDir)) {

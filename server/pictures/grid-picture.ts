@@ -23,12 +23,16 @@ export interface GridPictureRequest {
   title?: string
 }
 
-/** The grid after a step as PNG bytes; a step past the take's last is the caller's mistake (400). */
-export async function renderGridPicture({ outline, step, shape, highlights, title = outline.title }: GridPictureRequest): Promise<Buffer> {
-  const count = outline.steps.length
+/** A step past the take's last is the caller's mistake (400); checked before a picture is sent to be drawn elsewhere. */
+export function checkPictureStep(count: number, step: number): void {
   if (!Number.isInteger(step) || step < 0 || step > count) {
     throw new HttpError(400, 'step-out-of-range', `This take has ${count} ${count === 1 ? 'step' : 'steps'}; pick a step from 0 to ${count}`)
   }
+}
+
+/** The grid after a step as PNG bytes. */
+export async function renderGridPicture({ outline, step, shape, highlights, title = outline.title }: GridPictureRequest): Promise<Buffer> {
+  checkPictureStep(outline.steps.length, step)
   const svg = gridSvg(boardAt(outline, step), { ...PICTURE_SIZES[shape], highlights, title, textShape: await textShapes() })
   try {
     // the picture's text is outlines already: no font lookup, and no system fonts to scan

@@ -11,12 +11,15 @@ import { findPuzzle } from '../db/puzzles'
 import { findRecording } from '../db/recordings'
 import { findUserById } from '../db/users'
 import { HttpError, notFound } from '../errors'
-import { renderGridPicture } from '../pictures/grid-picture'
+import { checkPictureStep } from '../pictures/grid-picture'
+import type { Exports } from '../workers/export-pool'
 import { recordingFileOf, type RecordingDeps } from './recordings'
 import { episodePageData } from './episode-page-data'
 
 export interface EpisodeDeps extends RecordingDeps {
   grants: EpisodeGrants
+  /** where pictures are drawn, off the request thread */
+  exports: Exports
 }
 
 // ---- the studio's side: publish, unpublish, list -------------------------------------------------
@@ -172,7 +175,8 @@ export async function episodeCaptionsOf(deps: EpisodeDeps, channelSlug: string, 
 /** The grid of the published take as a PNG picture. */
 export async function episodePictureOf(deps: EpisodeDeps, channelSlug: string, episodeSlug: string, visitor: Visitor, query: PictureQuery): Promise<Buffer> {
   const row = await visibleEpisode(deps, channelSlug, episodeSlug, visitor)
-  return renderGridPicture({ outline: row.snapshot, step: query.step, shape: query.shape, highlights: query.highlights === 'on', title: row.title })
+  checkPictureStep(row.snapshot.steps.length, query.step)
+  return deps.exports.gridPicture({ outline: row.snapshot, step: query.step, shape: query.shape, highlights: query.highlights === 'on', title: row.title })
 }
 
 const isLive = (row: EpisodePageRow) => stateOf(row, new Date()) === 'live'

@@ -51,6 +51,7 @@ export function createEnginePool({ threads, timeoutMs, exportTimeoutMs = 10_000,
     check: (puzzle) => engine.run('check', puzzle),
     outline: (task) => engine.run('outline', task),
     cueSheet: exports.cueSheet,
+    gridPicture: exports.gridPicture,
     async destroy() {
       await Promise.all([engine.destroy(), exports.destroy()])
     },

@@ -2,12 +2,15 @@ import { HttpError } from '../errors'
 import type { AppLogger } from '../logger'
 import type * as ExportJob from './export-task'
 import type { CueSheetTask } from './export-task'
+import type { GridPictureRequest } from '../pictures/grid-picture'
 import { besideThis, createTaskPool } from './task-pool'
 
 /** Heavy exports, made off the request thread. */
 export interface Exports {
   /** The printable cue sheet (PDF bytes) of a stored outline document. */
   cueSheet(task: CueSheetTask): Promise<Buffer>
+  /** A grid picture (PNG bytes); a step out of range is the caller's 400. */
+  gridPicture(request: GridPictureRequest): Promise<Buffer>
 }
 
 interface ExportPoolOptions {
@@ -18,7 +21,7 @@ interface ExportPoolOptions {
   logger: AppLogger
 }
 
-/** The exports' worker pool: a cue sheet whose layout runs long holds up one of its threads, never a request. */
+/** The exports' worker pool: a cue sheet whose layout runs long, or a picture being drawn, holds up one of its threads, never a request. */
 export function createExportPool({ threads, timeoutMs, idleTimeoutMs, logger }: ExportPoolOptions): Exports & { destroy(): Promise<void> } {
   const pool = createTaskPool<typeof ExportJob>({
     job: besideThis('./export-task', import.meta.url),
@@ -30,14 +33,19 @@ export function createExportPool({ threads, timeoutMs, idleTimeoutMs, logger }: 
     niceIncrement: 10,
     logger,
     tooSlow: () => new HttpError(503, 'export-timeout', 'The cue sheet took too long to make; please try again'),
-    busy: () => new HttpError(503, 'export-busy', 'Cue sheets are being made for others right now; please try again in a moment'),
+    busy: () => new HttpError(503, 'export-busy', 'Cue sheets and pictures are being made for others right now; please try again in a moment'),
   })
   return {
     async cueSheet(task) {
-      // a Buffer crosses the thread boundary as a plain Uint8Array: view the same bytes as a Buffer again
       const bytes: Uint8Array = await pool.run('cueSheet', task)
-      return Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength)
+      return asBuffer(bytes)
+    },
+    async gridPicture(request) {
+      return asBuffer(await pool.run('gridPicture', request))
     },
     destroy: () => pool.destroy(),
   }
 }
+
+// a Buffer crosses the thread boundary as a plain Uint8Array: view the same bytes as a Buffer again
+const asBuffer = (bytes: Uint8Array): Buffer => Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength)

@@ -4,6 +4,7 @@
  */
 import type { Outline } from '../../shared/schemas/outline'
 import { renderCueSheetPdf } from '../exports/cue-sheet-pdf'
+import { renderGridPicture, type GridPictureRequest } from '../pictures/grid-picture'
 
 export interface CueSheetTask {
   /** the stored outline document as JSON text, parsed here rather than on the request thread */
@@ -15,4 +16,9 @@ export interface CueSheetTask {
 /** The cue-sheet PDF of a stored (so already validated) outline document. */
 export function cueSheet({ document, thumbnails }: CueSheetTask): Promise<Buffer> {
   return renderCueSheetPdf(JSON.parse(document) as Outline, { thumbnails })
+}
+
+/** A grid picture as PNG: its drawing and its encoding (tens of milliseconds of CPU each) stay off the request thread. */
+export function gridPicture(request: GridPictureRequest): Promise<Buffer> {
+  return renderGridPicture(request)
 }
