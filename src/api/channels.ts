@@ -21,7 +21,7 @@ export function getChannel(channelId: number, signal?: AbortSignal): Promise<Cha
   return http.get(`/channels/${channelId}`, channelSummarySchema, { signal })
 }
 
-/** Owners, presenters and editors only; a viewer gets a 403. */
+/** Owners, presenters and editors only; a viewer gets a 404. */
 export function listChannelMembers(channelId: number, signal?: AbortSignal): Promise<ChannelMember[]> {
   return http.get(`/channels/${channelId}/members`, memberListSchema, { signal })
 }

@@ -105,8 +105,8 @@ describe('GET /api/channels/:channelId/outlines/:outlineId/picture.png', () => {
     expect(res.body.message).toMatch(/^query\.shape: /)
   })
 
-  it("should answer a viewer 403 and another channel's owner 404", async () => {
-    expect((await as('viewer').get(picturePath(''))).status).toBe(403)
+  it("should answer a viewer 404 (no hint the take exists) and another channel's owner 404", async () => {
+    expect((await as('viewer').get(picturePath(''))).status).toBe(404)
     const other = await suite.ownersOtherChannel()
     expect((await as('owner').get(`/api/channels/${other}/outlines/${outline.id}/picture.png`)).status).toBe(404)
   })

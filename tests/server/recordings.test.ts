@@ -148,7 +148,7 @@ describe.each([
       // our own stored name: the channel and a UUID, never the uploaded name
       expect((await api.db('recordings').first('storage_key'))?.storage_key).toMatch(new RegExp(`^recordings/${api.channelId}/[0-9a-f-]{36}\\.wav$`))
 
-      await expect.poll(async () => (await api.as('viewer').get(base())).status).toBe(403)
+      await expect.poll(async () => (await api.as('viewer').get(base())).status).toBe(404)
       await expect.poll(async () => (await api.as('presenter').get(`${base()}/${recording.id}/peaks`)).status, { timeout: 10_000 }).toBe(200)
       const peaks = peaksSchema.parse((await api.as('presenter').get(`${base()}/${recording.id}/peaks`)).body)
       expect(peaks.durationMs).toBe(1000)
@@ -299,9 +299,9 @@ describe.each([
       expect(head.headers['content-length']).toBe('100')
     })
 
-    it('should serve a recording only to the studio team of its channel: a viewer gets 403, another channel 404', async () => {
+    it('should serve a recording only to the studio team of its channel: a viewer and another channel get 404', async () => {
       const { id } = await uploaded(WAV, 'private.wav')
-      expect((await api.as('viewer').get(`${base()}/${id}/media`)).status).toBe(403)
+      expect((await api.as('viewer').get(`${base()}/${id}/media`)).status).toBe(404)
       expect((await api.as('non-member').get(`${base()}/${id}/media`)).status).toBe(404)
       const other = await api.ownersOtherChannel()
       expect((await api.as('owner').get(`${base(other)}/${id}/media`)).status).toBe(404)
@@ -369,9 +369,9 @@ describe.each([
       expect((await request(api.app).get(presenterUrl)).status).toBe(404)
     })
 
-    it('should not hand a link to a viewer (403) nor to another channel (404)', async () => {
+    it('should not hand a link to a viewer nor to another channel (404)', async () => {
       const { id } = await uploaded(WAV, 'private-link.wav')
-      expect((await api.as('viewer').get(`${base()}/${id}/media-link`)).status).toBe(403)
+      expect((await api.as('viewer').get(`${base()}/${id}/media-link`)).status).toBe(404)
       const other = await api.ownersOtherChannel()
       expect((await api.as('owner').get(`${base(other)}/${id}/media-link`)).status).toBe(404)
     })

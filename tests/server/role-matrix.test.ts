@@ -160,14 +160,16 @@ function outcomeFor(access: Access, actor: Actor): Outcome {
   if (actor === 'anonymous') return 401
   if (access === 'signed-in') return 'allowed'
   if (actor === 'non-member') return 404
-  return rolesFor(access).includes(actor) ? 'allowed' : 403
+  if (rolesFor(access).includes(actor)) return 'allowed'
+  // a viewer is given no hint that the studio's drafts, scripts and recordings exist (issue #11)
+  return actor === 'viewer' ? 404 : 403
 }
 
 const refusal = (outcome: 401 | 403 | 404, actor: Actor) =>
   ({
     401: { code: 'unauthenticated', message: 'Please sign in first.' },
     403: { code: 'forbidden', message: `Your role in this channel (${actor}) does not allow this` },
-    404: { code: 'not-found', message: 'Channel not found' },
+    404: actor === 'viewer' ? { code: 'not-found', message: 'Nothing was found at this address.' } : { code: 'not-found', message: 'Channel not found' },
   })[outcome]
 
 type Client = ReturnType<typeof api.as>
