@@ -304,7 +304,9 @@ describe('GET /api/channels/:channelId/outlines/:outlineId/cue-sheet.pdf', () =>
     const copy = await copyOfFirst()
     const outline = { ...copy.outline, lines: copy.outline.lines.map((l, i) => (i === 1 ? { ...l, text: 'x'.repeat(40_000) } : l)) }
     await api.db('outlines').where({ id: copy.id }).update({ script: api.db.raw('?::jsonb', [JSON.stringify(scriptOf(outline))]) })
-    const exports = createExportPool({ threads: 1, timeoutMs: 1500, logger: createLogger('silent') })
+    // a limit that a plain cue sheet meets even on a busy machine (the thread runs at a lower priority),
+    // and the 40,000-character word (tens of seconds of layout) never does
+    const exports = createExportPool({ threads: 1, timeoutMs: 5000, logger: createLogger('silent') })
     try {
       await cueSheetOf(api.db, exports, api.channelId, first.id, false) // the export thread is up
       let settled = false
