@@ -27,11 +27,19 @@ function runPath(puzzle: Puzzle): SolveResult {
   const steps: Step[] = []
   const marks = new Set<Cell>()
   let near: Cell[] = []
+  // Assumptions already refuted by a what-if (cell × 9 + digit − 1). Their candidate is gone, so a
+  // repeat can't be found; the check keeps a technique that misreads the board from saying one twice.
+  const refuted = new Set<number>()
   // Each step removes at least one candidate, so 729 bounds the loop even if a technique misbehaves.
   while (!board.isSolved() && steps.length < 729) {
     const deduction = nextDeduction(board, near)
     if (!deduction) break
-    apply(board, deduction)
+    if (deduction.facts.kind === 'contradiction') {
+      const key = deduction.facts.cell * 9 + deduction.facts.assumed - 1
+      if (refuted.has(key)) throw new Error(`solvePath: the what-if ${deduction.facts.assumed} in cell ${deduction.facts.cell} was already refuted`)
+      refuted.add(key)
+    }
+    board.apply(deduction, steps.length)
     for (const p of deduction.placements) marks.delete(p.cell)
     if (!deduction.placements.length) {
       for (const c of deduction.focus) if (!board.digits[c]) marks.add(c)
@@ -61,13 +69,4 @@ function nextDeduction(board: Board, near: readonly Cell[]): Deduction | null {
     if (best) return best
   }
   return null
-}
-
-function apply(board: Board, deduction: Deduction): void {
-  for (const p of deduction.placements) board.place(p.cell, p.digit)
-  for (const e of deduction.eliminations) {
-    let mask = 0
-    for (const d of e.digits) mask |= 1 << (d - 1)
-    board.eliminate(e.cell, mask)
-  }
 }

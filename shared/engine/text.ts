@@ -1,7 +1,7 @@
 /** One-line plain descriptions of steps, in Gridcue's own wording; the narration lives in shared/script. */
 import { cellName, houseName } from '../grid'
 import { byFactsKind, type FactsTable } from './facts-table'
-import type { Cell, ChainLink, Digit, Elimination, Step } from './types'
+import type { Cell, ChainLink, Digit, Elimination, FactsOf, HouseRef, Step } from './types'
 
 type Described = Omit<Step, 'text' | 'marks'>
 
@@ -34,6 +34,45 @@ const DESCRIBE: FactsTable<string, [Described]> = {
     const ranges = f.ranges.map((r) => `${cellName(r.cell)} ${r.min === r.max ? `= ${r.min}` : `${r.min}-${r.max}`}`).join(', ')
     return `Thermometer ${f.thermometer + 1}: ${cellName(f.fromCell)} ${bound}${f.withSudoku ? ' (counting digits already in their houses)' : ''}: ${ranges}`
   },
+  'thermo-pointing': (f, step) => {
+    const thermometers = [...new Set(f.homes.map((h) => h.thermometer + 1))]
+    const nearest = Math.min(...f.homes.map((h) => h.steps))
+    const where = `all ${f.side} ${cellName(f.cell)} on thermometer${thermometers.length > 1 ? 's' : ''} ${listWords(thermometers.map(String))}, the nearest ${nearest} place${nearest > 1 ? 's' : ''} away`
+    return `In ${houseName(f.house)} the ${f.digit}s lie only in ${listCells(f.homes.map((h) => h.cell))}, ${where}, so ${cellName(f.cell)} is at ${f.side === 'before' ? 'least' : 'most'} ${f.bound}: ${removals(step.eliminations)}`
+  },
+  'thermo-either': (f, step) => {
+    const branch = (h: FactsOf<'thermo-either'>['homes'][number]) => {
+      if (h.via === 'itself') return `if ${cellName(h.cell)}, it is ${f.digit}`
+      if (h.via === 'house') return `if ${cellName(h.cell)}, ${cellName(f.cell)} (same ${houseName(h.house)}) is not ${f.digit}`
+      const apart = `${h.steps} place${h.steps > 1 ? 's' : ''} ${h.side === 'before' ? 'after' : 'before'} it on thermometer ${h.thermometer + 1}`
+      const bound = h.side === 'before' ? `at least ${f.digit + h.steps}` : `at most ${f.digit - h.steps}`
+      return `if ${cellName(h.cell)}, ${cellName(f.cell)} (${apart}) is ${bound}`
+    }
+    const [a, b] = f.homes
+    return `The ${f.digit} in ${houseName(f.house)} is in ${cellName(a.cell)} or ${cellName(b.cell)}: ${branch(a)}; ${branch(b)}; so ${removals(step.eliminations)}`
+  },
+  'thermo-ends': (f, step) => {
+    const [a, b] = f.homes
+    const run = f.end === 'tip' ? 'climb one by one to a 9 at the tip' : 'fall one by one to a 1 at the bulb'
+    return `The ${f.digit} in ${houseName(f.house)} is in ${cellName(a.cell)} or ${cellName(b.cell)}, and from either its thermometer must ${run}, so ${cellName(a.end)} or ${cellName(b.end)} is ${f.end === 'tip' ? 9 : 1}: ${removals(step.eliminations)}`
+  },
+  fish: (f, step) => {
+    const name = f.baseLines.length === 2 ? 'X-wing' : 'swordfish'
+    return `In ${listLines(f.baseLines)} the ${f.digit}s lie only in ${listLines(f.coverLines)} (${name}), so ${removals(step.eliminations)}`
+  },
+  wing: (f, step) => {
+    const [a, b] = f.pincers
+    const pair = (d: Digit) => `${d}/${f.digit}`
+    const pivot = `${cellName(f.pivot)} (${f.pivotDigits.join('/')}) with ${cellName(a)} (${pair(f.pincerDigits[0])}) and ${cellName(b)} (${pair(f.pincerDigits[1])})`
+    return f.form === 'xy'
+      ? `${pivot}: one of ${cellName(a)} and ${cellName(b)} is ${f.digit} (XY-wing), so ${removals(step.eliminations)}`
+      : `${pivot}: one of the three is ${f.digit} (XYZ-wing), so ${removals(step.eliminations)}`
+  },
+  'w-wing': (f, step) => {
+    const [x, y] = f.cells
+    const [lx, ly] = f.link.cells
+    return `${cellName(x)} and ${cellName(y)} hold only ${listDigits(f.digits)}, and the ${f.link.digit} in ${houseName(f.link.house)} is in ${cellName(lx)} or ${cellName(ly)}, which see them: one of them is ${f.digit} (W-wing), so ${removals(step.eliminations)}`
+  },
   contradiction: (f) => {
     const moves = f.chain.map(describeLink)
     const end = f.emptyCell !== undefined ? `${cellName(f.emptyCell)} has no candidate left` : f.emptyHouse ? `${houseName(f.emptyHouse.house)} has no place for ${f.emptyHouse.digit}` : 'nothing fits'
@@ -47,6 +86,11 @@ function describeLink(link: ChainLink): string {
 
 function removals(eliminations: Elimination[]): string {
   return eliminations.map((e) => `${cellName(e.cell)} loses ${listDigits(e.digits)}`).join(', ')
+}
+
+/** "rows 2 and 7", "columns 3, 5 and 8": lines of one kind. */
+function listLines(lines: HouseRef[]): string {
+  return `${lines[0]?.kind ?? 'row'}s ${listWords(lines.map((h) => String(h.index + 1)))}`
 }
 
 function listCells(cells: Cell[]): string {

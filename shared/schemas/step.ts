@@ -38,6 +38,14 @@ const techniqueIdSchema = z.enum([
   'locked-line-box', // a line's candidates for a digit all in one box: clear the rest of the box
   'thermo-length', // position i of an n-cell thermometer holds i … 9 − n + i
   'thermo-bounds', // bounds carried along a thermometer from fixed or restricted cells
+  'thermo-pointing', // a house's places for a digit all lie before (after) a thermometer cell: it is higher (lower)
+  'thermo-either', // a digit's two places in a house each rule a cell out, one through a thermometer
+  'thermo-ends', // a digit's two places in a house each force their thermometer's tip to 9 (bulb to 1)
+  'x-wing', // two lines whose places for a digit lie in the same two crossing lines: clear the rest of those
+  'swordfish', // the same with three lines
+  'xy-wing', // a two-digit pivot and two pincers: one pincer holds the shared digit
+  'xyz-wing', // a three-digit pivot and two pincers: one of the three holds the shared digit
+  'w-wing', // two matching two-digit cells joined by a digit's two places in a house
   'contradiction', // assume a candidate, follow simple steps, reach an empty cell or house
 ])
 export type TechniqueId = z.infer<typeof techniqueIdSchema>
@@ -49,6 +57,9 @@ export type Elimination = z.infer<typeof eliminationSchema>
 
 const thermometerIndex = z.int().min(0)
 
+/** A step's place in its path, from 0 (the index an outline line's `steps` use). */
+const stepIndex = z.int().min(0).max(CANDIDATES)
+
 /** One consequence inside a contradiction chain. */
 const chainLinkSchema = z.object({
   technique: techniqueIdSchema,
@@ -59,11 +70,20 @@ const chainLinkSchema = z.object({
   /** house or thermometer that forced it, when there is one */
   house: houseRefSchema.optional(),
   thermometer: thermometerIndex.optional(),
+  /**
+   * What pushed it: a digit placed by the assumption or an earlier link (`cell` holds `digit`), or
+   * for a thermometer link the neighbour whose bound moved (`digit` is that neighbour's new smallest
+   * digit when it sits before the cell, its new largest when it sits after). Older outlines lack it.
+   */
+  because: z.object({ cell: cellSchema, digit: digitSchema }).optional(),
 })
 export type ChainLink = z.infer<typeof chainLinkSchema>
 
 /** The range a thermometer cell is limited to. */
 const rangeSchema = z.object({ cell: cellSchema, min: digitSchema, max: digitSchema })
+
+/** A cell and a thermometer it shares with another cell, `steps` places apart on it. */
+const thermoStepsSchema = z.object({ cell: cellSchema, thermometer: thermometerIndex, steps: z.int().min(1).max(8) })
 
 /** Structured facts the narration is built from, one shape per family of techniques. */
 const stepFactsSchema = z.discriminatedUnion('kind', [
@@ -73,14 +93,27 @@ const stepFactsSchema = z.discriminatedUnion('kind', [
     digit: digitSchema,
     /**
      * The other digits, grouped by why the cell can't hold them: placed in its row, column or box,
-     * or removed from its candidates by earlier steps (which step is not recorded).
+     * or removed from its candidates by earlier steps (`ruledOut`; which steps is in `ruledOutBy`).
      */
     seen: z.preprocess(
       renamedRuledOut,
       z.object({ row: listOf(digitSchema), column: listOf(digitSchema), box: listOf(digitSchema), ruledOut: listOf(digitSchema) }),
     ),
+    /** for each digit of `seen.ruledOut`, the earlier step that removed it (absent in older outlines) */
+    ruledOutBy: listOf(z.object({ digit: digitSchema, step: stepIndex })).optional(),
   }),
-  z.object({ kind: z.literal('single-house'), cell: cellSchema, digit: digitSchema, house: houseRefSchema, blockedCells: listOf(cellSchema) }),
+  z.object({
+    kind: z.literal('single-house'),
+    cell: cellSchema,
+    digit: digitSchema,
+    house: houseRefSchema,
+    blockedCells: listOf(cellSchema),
+    /**
+     * Why each blocked cell can't take the digit: `peer` holds it (placed or given), or the earlier
+     * `step` removed it from the cell. In `blockedCells` order; absent in older outlines.
+     */
+    blockers: listOf(z.union([z.object({ cell: cellSchema, peer: cellSchema }), z.object({ cell: cellSchema, step: stepIndex })])).optional(),
+  }),
   z.object({
     kind: z.literal('subset'),
     form: z.enum(['naked', 'hidden']),
@@ -117,6 +150,86 @@ const stepFactsSchema = z.discriminatedUnion('kind', [
     withSudoku: z.boolean(),
   }),
   z.object({
+    kind: z.literal('thermo-pointing'),
+    digit: digitSchema,
+    /** the house whose places for the digit all lie on thermometers through `cell` */
+    house: houseRefSchema,
+    /** 'before': every place lies before `cell`, so it is higher than the digit; 'after': every place lies after it, so lower */
+    side: z.enum(['before', 'after']),
+    /** each place, a thermometer it shares with `cell`, and how many places apart the two stand on it */
+    homes: listOf(thermoStepsSchema),
+    cell: cellSchema,
+    /** `cell`'s new smallest ('before') or largest ('after') digit: the digit plus or minus the smallest distance */
+    bound: digitSchema,
+  }),
+  z.object({
+    kind: z.literal('thermo-either'),
+    digit: digitSchema,
+    /** the house where the digit has exactly two places */
+    house: houseRefSchema,
+    /** the cell that loses digits, whichever place holds the digit; it may be one of the places */
+    cell: cellSchema,
+    /** the two places, each with what it does to `cell`: a thermometer they share, a house, or being `cell` itself */
+    homes: listOf(
+      z.discriminatedUnion('via', [
+        thermoStepsSchema.extend({ via: z.literal('thermometer'), side: z.enum(['before', 'after']) }),
+        z.object({ via: z.literal('house'), cell: cellSchema, house: houseRefSchema }),
+        // the place is `cell` itself: if it holds the digit, that's all it holds
+        z.object({ via: z.literal('itself'), cell: cellSchema }),
+      ]),
+    ),
+  }),
+  z.object({
+    kind: z.literal('thermo-ends'),
+    digit: digitSchema,
+    /** the house where the digit has exactly two places */
+    house: houseRefSchema,
+    /** 'tip': from either place its thermometer climbs one by one up to 9 at the tip; 'bulb': down to 1 at the bulb */
+    end: z.enum(['tip', 'bulb']),
+    /** the two places, each with its thermometer and that thermometer's tip or bulb */
+    homes: listOf(z.object({ cell: cellSchema, thermometer: thermometerIndex, end: cellSchema })),
+    /** cells that see both ends and so lose 9 (tips) or 1 (bulbs) */
+    eliminated: listOf(cellSchema),
+  }),
+  z.object({
+    kind: z.literal('fish'),
+    digit: digitSchema,
+    /** the rows (or columns) whose places for the digit all lie in the cover lines */
+    baseLines: listOf(houseRefSchema),
+    /** the crossing columns (or rows) those places lie in, as many as there are base lines */
+    coverLines: listOf(houseRefSchema),
+    /** the base lines' places for the digit */
+    cells: listOf(cellSchema),
+    /** cover-line cells outside the base lines that lose the digit */
+    eliminated: listOf(cellSchema),
+  }),
+  z.object({
+    kind: z.literal('wing'),
+    /** 'xy': the pivot holds two digits, one shared with each pincer; 'xyz': it also holds `digit` */
+    form: z.enum(['xy', 'xyz']),
+    pivot: cellSchema,
+    pivotDigits: listOf(digitSchema),
+    /** two cells that see the pivot, each holding `digit` and one other digit of the pivot */
+    pincers: listOf(cellSchema),
+    /** for each pincer, its digit besides `digit` (the one it shares with the pivot) */
+    pincerDigits: listOf(digitSchema),
+    /** the digit one of the pincers (or, for 'xyz', the pivot) must hold */
+    digit: digitSchema,
+    /** cells that see both pincers (and, for 'xyz', the pivot) and lose `digit` */
+    eliminated: listOf(cellSchema),
+  }),
+  z.object({
+    kind: z.literal('w-wing'),
+    /** two cells that don't see each other, both holding only `digits` */
+    cells: listOf(cellSchema),
+    digits: listOf(digitSchema),
+    /** the digit one of the two cells must hold, removed from cells that see both */
+    digit: digitSchema,
+    /** the other digit's only two places in a house; cells[0] sees the link's cells[0], cells[1] its cells[1] */
+    link: z.object({ house: houseRefSchema, digit: digitSchema, cells: listOf(cellSchema) }),
+    eliminated: listOf(cellSchema),
+  }),
+  z.object({
     kind: z.literal('contradiction'),
     cell: cellSchema,
     assumed: digitSchema,
@@ -124,6 +237,8 @@ const stepFactsSchema = z.discriminatedUnion('kind', [
     /** where it breaks: a cell with no candidates, or a digit with no place in a house */
     emptyCell: cellSchema.optional(),
     emptyHouse: z.object({ house: houseRefSchema, digit: digitSchema }).optional(),
+    /** true for a long what-if (more than six links), taken only when no shorter one exists */
+    long: z.boolean().optional(),
   }),
 ])
 export type StepFacts = z.infer<typeof stepFactsSchema>

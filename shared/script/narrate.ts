@@ -13,6 +13,7 @@ import {
   BREAK_IN,
   CONTRADICTION,
   EXPLAIN,
+  FISH,
   HIDDEN_SUBSET,
   LOCKED_BOX_LINE,
   LOCKED_LINE_BOX,
@@ -21,7 +22,13 @@ import {
   SINGLE_CELL,
   SINGLE_HOUSE,
   THERMO_BOUNDS,
+  THERMO_EITHER,
+  THERMO_ENDS,
   THERMO_LENGTH,
+  THERMO_POINTING,
+  W_WING,
+  XY_WING,
+  XYZ_WING,
   eliminationsWords,
   placementsWords,
   type Phrasing,
@@ -116,7 +123,7 @@ function renderStep(src: ScriptSource, index: number, phrasing: number, n: Namer
   const told = narrationOf(step)
   const parts: string[] = []
   if (told.explain && firstWithIdea(src.steps, index, told.explain.idea)) parts.push(told.explain.words())
-  parts.push(pickOf(told.phrasings(), phrasing)({ n, step }))
+  parts.push(pickOf(told.phrasings(), phrasing)({ n, step, steps: src.steps }))
   if (told.sayAlso.eliminations) {
     const elim = eliminationsWords(step, n)
     if (elim) parts.push(elim)
@@ -183,6 +190,44 @@ const NARRATION: FactsTable<Narration> = {
     explain: { idea: f.kind, words: EXPLAIN['thermo-bounds'] },
     phrasings: () => withFacts(THERMO_BOUNDS, f),
     sayAlso: PLACEMENTS,
+  }),
+  'thermo-pointing': (f) => ({
+    family: f.kind,
+    explain: { idea: f.kind, words: EXPLAIN['thermo-pointing'] },
+    phrasings: () => withFacts(THERMO_POINTING, f),
+    sayAlso: ELIMINATIONS_AND_PLACEMENTS,
+  }),
+  // the phrasings end on the digits the cell loses, so nothing more is said
+  'thermo-either': (f) => ({
+    family: f.kind,
+    explain: { idea: f.kind, words: EXPLAIN['thermo-either'] },
+    phrasings: () => withFacts(THERMO_EITHER, f),
+    sayAlso: NOTHING_MORE,
+  }),
+  'thermo-ends': (f) => ({
+    family: f.kind,
+    explain: { idea: f.kind, words: EXPLAIN['thermo-ends'] },
+    phrasings: () => withFacts(THERMO_ENDS, f),
+    sayAlso: ELIMINATIONS_AND_PLACEMENTS,
+  }),
+  fish: (f) => ({
+    family: f.kind,
+    // an X-wing and a swordfish rest on one idea, explained once
+    explain: { idea: f.kind, words: () => EXPLAIN.fish(f.baseLines.length, f.baseLines[0]?.kind ?? 'row', f.coverLines[0]?.kind ?? 'column') },
+    phrasings: () => withFacts(FISH, f),
+    sayAlso: ELIMINATIONS_AND_PLACEMENTS,
+  }),
+  wing: (f) => ({
+    family: `wing-${f.form}`,
+    explain: { idea: `wing-${f.form}`, words: EXPLAIN[`wing-${f.form}`] },
+    phrasings: () => withFacts(f.form === 'xy' ? XY_WING : XYZ_WING, f),
+    sayAlso: ELIMINATIONS_AND_PLACEMENTS,
+  }),
+  'w-wing': (f) => ({
+    family: f.kind,
+    explain: { idea: f.kind, words: EXPLAIN['w-wing'] },
+    phrasings: () => withFacts(W_WING, f),
+    sayAlso: ELIMINATIONS_AND_PLACEMENTS,
   }),
   contradiction: (f) => ({
     family: f.kind,

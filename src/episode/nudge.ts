@@ -19,6 +19,13 @@ export interface NudgeArea {
 const boxArea = (box: number): NudgeArea => ({ text: `Look at box ${box + 1}.`, houses: [{ kind: 'box', index: box }], thermometers: [] })
 const houseArea = (house: HouseRef): NudgeArea => ({ text: `Look at ${houseName(house)}.`, houses: [house], thermometers: [] })
 
+/** Several rows (or columns) at once: "Look at rows 2 and 7." */
+function linesArea(lines: HouseRef[]): NudgeArea {
+  const numbers = lines.map((h) => h.index + 1)
+  const list = numbers.length <= 1 ? numbers.join('') : `${numbers.slice(0, -1).join(', ')} and ${numbers[numbers.length - 1]}`
+  return { text: `Look at ${lines[0]?.kind ?? 'row'}s ${list}.`, houses: lines, thermometers: [] }
+}
+
 /** Thermometers are named by where their bulb sits: the page shows no thermometer numbers. */
 function thermometerArea(index: number, bulbs: readonly number[]): NudgeArea {
   const bulb = bulbs[index]
@@ -34,6 +41,13 @@ const AREAS: FactsTable<NudgeArea, [bulbs: readonly number[]]> = {
   locked: (f) => boxArea(f.box),
   'thermo-length': (f, bulbs) => thermometerArea(f.thermometer, bulbs),
   'thermo-bounds': (f, bulbs) => thermometerArea(f.thermometer, bulbs),
+  // the house whose places for the digit start the deduction; the thermometer is the second look
+  'thermo-pointing': (f) => houseArea(f.house),
+  'thermo-either': (f) => houseArea(f.house),
+  'thermo-ends': (f) => houseArea(f.house),
+  fish: (f) => linesArea(f.baseLines),
+  wing: (f) => boxArea(boxOf(f.pivot)),
+  'w-wing': (f) => houseArea(f.link.house),
   contradiction: (f) => boxArea(boxOf(f.cell)),
 }
 

@@ -1,7 +1,7 @@
 /** Only place for a digit in a row, column or box (hidden single). */
 import { ALL_DIGITS, HOUSES, PEERS, houseRef, lowestDigit } from '../../grid'
 import type { Board } from '../board'
-import type { Cell } from '../types'
+import type { Cell, FactsOf } from '../types'
 import { Picker, type Deduction, type Technique } from './deduction'
 import { TECHNIQUES } from './catalog'
 
@@ -39,22 +39,32 @@ export const hiddenSingle: Technique = {
 
 function build(board: Board, house: number, cell: Cell, digit: number): Deduction {
   const blockedCells: Cell[] = []
-  const blockers = new Set<Cell>()
+  const blockers: NonNullable<FactsOf<'single-house'>['blockers']> = []
+  const peers = new Set<Cell>()
   const thermometers = new Set<number>()
   for (const c of HOUSES[house]) {
     if (c === cell || board.digits[c]) continue
     blockedCells.push(c)
+    // A digit in sight is the reason a viewer sees, so it wins over an earlier step that had
+    // already removed the candidate; only a cell no placed digit blocks is told by its step.
     const by = PEERS[c].find((p) => board.digits[p] === digit)
-    if (by !== undefined) blockers.add(by)
-    else board.thermometers.forEach((t, i) => t.includes(c) && thermometers.add(i))
+    if (by !== undefined) {
+      blockers.push({ cell: c, peer: by })
+      peers.add(by)
+      continue
+    }
+    const step = board.removedBy[c * 9 + digit - 1]
+    if (step < 0) throw new Error(`hidden single: nothing removed ${digit} from cell ${c}`)
+    blockers.push({ cell: c, step })
+    for (const t of board.reasons[step]?.thermometers ?? []) thermometers.add(t)
   }
   return {
     technique: 'hidden-single',
     placements: [{ cell, digit }],
     eliminations: [],
     focus: [cell],
-    reason: { houses: [houseRef(house)], thermometers: [...thermometers], cells: [...blockers].sort((a, b) => a - b) },
-    facts: { kind: 'single-house', cell, digit, house: houseRef(house), blockedCells },
+    reason: { houses: [houseRef(house)], thermometers: [...thermometers].sort((a, b) => a - b), cells: [...peers].sort((a, b) => a - b) },
+    facts: { kind: 'single-house', cell, digit, house: houseRef(house), blockedCells, blockers },
     difficulty: TECHNIQUES['hidden-single'].difficulty,
   }
 }

@@ -3,13 +3,20 @@ import type { TechniqueId } from '../types'
 import { TECHNIQUES } from './catalog'
 import { contradiction } from './contradiction'
 import type { Technique } from './deduction'
+import { fish } from './fish'
 import { hiddenSingle } from './hidden-single'
 import { hiddenSubset } from './hidden-subset'
 import { lockedBoxLine, lockedLineBox } from './locked-candidates'
 import { nakedSingle } from './naked-single'
 import { nakedSubset } from './naked-subset'
 import { thermoBounds } from './thermo-bounds'
+import { thermoEither } from './thermo-either'
+import { thermoEnds } from './thermo-ends'
 import { thermoLength } from './thermo-length'
+import { thermoPointing } from './thermo-pointing'
+import { wWing } from './w-wing'
+import { xyWing } from './xy-wing'
+import { xyzWing } from './xyz-wing'
 
 // Every technique id needs a module here. Within a tier, this order breaks ties between equally
 // near deductions (string keys keep their insertion order).
@@ -20,10 +27,18 @@ const MODULES: Readonly<Record<TechniqueId, Technique>> = {
   'thermo-bounds': thermoBounds,
   'locked-box-line': lockedBoxLine,
   'locked-line-box': lockedLineBox,
+  'thermo-pointing': thermoPointing,
+  'thermo-either': thermoEither,
   'naked-pair': nakedSubset(2),
   'hidden-pair': hiddenSubset(2),
+  'thermo-ends': thermoEnds,
   'naked-triple': nakedSubset(3),
   'hidden-triple': hiddenSubset(3),
+  'x-wing': fish(2),
+  'xy-wing': xyWing,
+  swordfish: fish(3),
+  'xyz-wing': xyzWing,
+  'w-wing': wWing,
   contradiction,
 }
 

@@ -102,6 +102,117 @@ function simplerMoves(digits: Uint8Array, cand: Uint16Array, thermometers: numbe
       }
     })
   })
+  found.push(...fishAndWingMoves(digits, cand))
+  found.push(...thermoHouseMoves(digits, cand, thermometers))
+  return found
+}
+
+// Fish and wings (trade facts, from memory), again without the engine's code: an X-wing or swordfish
+// on any digit, rows to columns or columns to rows; an XY-wing, XYZ-wing or W-wing; each counted only
+// when it removes a candidate. Three wing cells sharing one house are a triple, counted as that.
+const sees = (a: number, b: number) => a !== b && unit(a).some((h) => unit(b).includes(h))
+const oneHouse = (cells: number[]) => unit(cells[0]).some((h) => cells.every((c) => unit(c).includes(h)))
+
+function fishAndWingMoves(digits: Uint8Array, cand: Uint16Array): string[] {
+  const found: string[] = []
+  const has = (c: number, d: number) => !digits[c] && (cand[c] & (1 << (d - 1))) !== 0
+  const open = Array.from({ length: 81 }, (_, c) => c).filter((c) => !digits[c])
+  const removable = (d: number, keep: number[], test: (c: number) => boolean) => open.some((c) => !keep.includes(c) && has(c, d) && test(c))
+  for (const kind of ['row', 'column'] as const) {
+    const lines = HOUSES.slice(kind === 'row' ? 0 : 9, kind === 'row' ? 9 : 18)
+    const across = (c: number) => (kind === 'row' ? c % 9 : Math.floor(c / 9))
+    for (let d = 1; d <= 9; d++) {
+      const spots = lines.map((line) => (line.some((c) => digits[c] === d) ? [] : line.filter((c) => has(c, d)).map(across)))
+      const candidates = spots.map((s, i) => (s.length >= 2 ? i : -1)).filter((i) => i >= 0)
+      for (const k of [2, 3]) {
+        for (const base of subsets(candidates, k)) {
+          const cover = [...new Set(base.flatMap((i) => spots[i]))]
+          if (cover.length === k && spots.some((s, i) => !base.includes(i) && s.some((x) => cover.includes(x)))) found.push(`fish of ${k} on ${d} in ${kind}s ${base.join(',')}`)
+        }
+      }
+    }
+  }
+  const two = open.filter((c) => bits(cand[c]).length === 2)
+  const three = open.filter((c) => bits(cand[c]).length === 3)
+  for (const p of [...two, ...three]) {
+    for (const [a, b] of subsets(two.filter((c) => sees(c, p)), 2)) {
+      const z = cand[a] & cand[b]
+      if (bits(z).length !== 1 || (cand[a] | cand[b]) !== (cand[p] | z) || oneHouse([p, a, b])) continue
+      const xyz = (cand[p] & z) !== 0
+      // XY-wing: the pivot is the two digits other than z; XYZ-wing: the pivot is all three
+      if (xyz ? bits(cand[p]).length !== 3 : bits(cand[p]).length !== 2 || cand[a] === cand[b]) continue
+      const d = bits(z)[0]
+      if (removable(d, [p, a, b], (c) => sees(c, a) && sees(c, b) && (!xyz || sees(c, p)))) found.push(`${xyz ? 'XYZ' : 'XY'}-wing at ${p}`)
+    }
+  }
+  for (const [c1, c2] of subsets(two, 2)) {
+    if (cand[c1] !== cand[c2] || sees(c1, c2)) continue
+    for (const b of bits(cand[c1])) {
+      const a = bits(cand[c1] & ~(1 << (b - 1)))[0]
+      for (const house of HOUSES) {
+        if (house.some((c) => digits[c] === b)) continue
+        const places = house.filter((c) => has(c, b))
+        if (places.length !== 2 || places.includes(c1) || places.includes(c2)) continue
+        const [l1, l2] = places
+        if (!((sees(l1, c1) && sees(l2, c2)) || (sees(l2, c1) && sees(l1, c2)))) continue
+        if (removable(a, [c1, c2], (c) => sees(c, c1) && sees(c, c2))) found.push(`W-wing at ${c1} and ${c2}`)
+      }
+    }
+  }
+  return found
+}
+
+// Thermometer and house together (constructed rules, written here without the engine's code): a digit's
+// places in a house all before (or all after) one cell on thermometers through it; a digit's two places
+// in a house each limiting one cell (it is the place, shares a house with it, or is bounded by it along a
+// thermometer), at least one through a thermometer; two places each with exactly the room to force their
+// thermometer to a 9 at the tip (or a 1 at the bulb), with a cell seeing both ends still holding it.
+function thermoHouseMoves(digits: Uint8Array, cand: Uint16Array, thermometers: number[][]): string[] {
+  const found: string[] = []
+  if (!thermometers.length) return found
+  // k > 0: a is k cells before b on some thermometer (the largest such k); k < 0: after; 0: none
+  const apart = (a: number, b: number) => {
+    let best = 0
+    for (const path of thermometers) {
+      const i = path.indexOf(a)
+      const j = path.indexOf(b)
+      if (i >= 0 && j >= 0 && Math.abs(j - i) > Math.abs(best)) best = j - i
+    }
+    return best
+  }
+  const range = (lo: number, hi: number) => [1, 2, 3, 4, 5, 6, 7, 8, 9].filter((x) => x >= lo && x <= hi).reduce((m, x) => m | (1 << (x - 1)), 0)
+  const open = Array.from({ length: 81 }, (_, c) => c).filter((c) => !digits[c])
+  const shrinks = (c: number, out: number) => (cand[c] & out) !== 0 && (cand[c] & ~out) !== 0
+  HOUSES.forEach((house, h) => {
+    for (let d = 1; d <= 9; d++) {
+      const bit = 1 << (d - 1)
+      if (house.some((c) => digits[c] === d)) continue
+      const places = house.filter((c) => !digits[c] && cand[c] & bit)
+      if (places.length < 2) continue
+      for (const x of open) {
+        const ks = places.map((p) => (p === x ? 0 : apart(p, x)))
+        // pointing: every place on one side of x along thermometers
+        if (!places.includes(x) && (ks.every((k) => k > 0) || ks.every((k) => k < 0))) {
+          const near = Math.min(...ks.map(Math.abs))
+          if (shrinks(x, ks[0] > 0 ? range(1, d + near - 1) : range(d - near + 1, 9))) found.push(`thermometer pointing ${d} from house ${h} at ${x}`)
+        }
+        // either place: what both possibilities deny x
+        if (places.length === 2 && ks.some((k) => k !== 0)) {
+          const deny = places.map((p, i) => (p === x ? 0x1ff & ~bit : ks[i] > 0 ? range(1, d + ks[i] - 1) : ks[i] < 0 ? range(d + ks[i] + 1, 9) : sees(p, x) ? bit : 0))
+          if (shrinks(x, deny[0] & deny[1])) found.push(`either place of ${d} in house ${h} at ${x}`)
+        }
+      }
+      if (places.length !== 2 || d === 1 || d === 9) continue
+      for (const [end, e] of [['tip', 9], ['bulb', 1]] as const) {
+        const ends = places.map((p) =>
+          thermometers.filter((path) => path.includes(p) && (end === 'tip' ? path.length - 1 - path.indexOf(p) === 9 - d : path.indexOf(p) === d - 1)).map((path) => (end === 'tip' ? path[path.length - 1] : path[0])),
+        )
+        for (const ea of ends[0]) for (const eb of ends[1]) {
+          if (ea !== eb && open.some((c) => c !== ea && c !== eb && sees(c, ea) && sees(c, eb) && cand[c] & (1 << (e - 1)))) found.push(`two ${end}s for ${d} in house ${h}`)
+        }
+      }
+    }
+  })
   return found
 }
 

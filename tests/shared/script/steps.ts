@@ -122,3 +122,83 @@ export function contradiction(cell: Cell, assumed: Digit, emptyCell: Cell): Step
     { focus: [cell], eliminations: [{ cell, digits: [assumed] }], difficulty: 6 },
   )
 }
+
+/** A fish on `digit`: base rows (1-based) hold it only in the cover columns (1-based); `elim` cells lose it. */
+export function fishStep(digit: Digit, rows: number[], cols: number[], elim: Cell[]): Step {
+  const cells = rows.flatMap((r) => cols.map((c) => rc(r, c)))
+  return step(
+    rows.length === 2 ? 'x-wing' : 'swordfish',
+    {
+      kind: 'fish',
+      digit,
+      baseLines: rows.map((r) => ({ kind: 'row', index: r - 1 })),
+      coverLines: cols.map((c) => ({ kind: 'column', index: c - 1 })),
+      cells,
+      eliminated: elim,
+    },
+    { focus: cells, eliminations: elim.map((cell) => ({ cell, digits: [digit] })), difficulty: rows.length === 2 ? 5.5 : 6.5 },
+  )
+}
+
+/**
+ * An XY-wing (pivot holds x and y) or XYZ-wing (pivot holds x, y and z): pincers[0] holds x and z,
+ * pincers[1] holds y and z; `elim` cells lose z.
+ */
+export function wingStep(form: 'xy' | 'xyz', pivot: Cell, [x, y, z]: [Digit, Digit, Digit], pincers: [Cell, Cell], elim: Cell[]): Step {
+  return step(
+    form === 'xy' ? 'xy-wing' : 'xyz-wing',
+    {
+      kind: 'wing',
+      form,
+      pivot,
+      pivotDigits: (form === 'xy' ? [x, y] : [x, y, z]).sort((a, b) => a - b),
+      pincers,
+      pincerDigits: [x, y],
+      digit: z,
+      eliminated: elim,
+    },
+    { focus: [pivot, ...pincers], eliminations: elim.map((cell) => ({ cell, digits: [z] })), difficulty: form === 'xy' ? 6 : 7 },
+  )
+}
+
+/** A W-wing: `cells` both hold only a and b; b's two places in `house` are `link` (link[i] sees cells[i]); `elim` cells lose a. */
+export function wWingStep(cells: [Cell, Cell], [a, b]: [Digit, Digit], house: HouseRef, link: [Cell, Cell], elim: Cell[]): Step {
+  return step(
+    'w-wing',
+    { kind: 'w-wing', cells, digits: [a, b].sort((p, q) => p - q), digit: a, link: { house, digit: b, cells: link }, eliminated: elim },
+    { focus: [...cells, ...link], eliminations: elim.map((cell) => ({ cell, digits: [a] })), difficulty: 7.5 },
+  )
+}
+
+/**
+ * Thermometer pointing on THERMO_B (thermometer 1): `homes` are the digit's places in `house`, each
+ * with its distance to `cell` along THERMO_B; `cell` loses what the bound rules out.
+ */
+export function thermoPointingStep(digit: Digit, house: HouseRef, side: 'before' | 'after', homes: [Cell, number][], cell: Cell): Step {
+  const near = Math.min(...homes.map(([, k]) => k))
+  const bound = side === 'before' ? digit + near : digit - near
+  const out = [1, 2, 3, 4, 5, 6, 7, 8, 9].filter((d) => (side === 'before' ? d < bound : d > bound))
+  return step(
+    'thermo-pointing',
+    { kind: 'thermo-pointing', digit, house, side, homes: homes.map(([c, steps]) => ({ cell: c, thermometer: 1, steps })), cell, bound },
+    { focus: [...homes.map(([c]) => c), cell], eliminations: [{ cell, digits: out }], reason: { houses: [house], thermometers: [1], cells: homes.map(([c]) => c) }, difficulty: 3.25 },
+  )
+}
+
+/** Either place of a digit: `homes` as in the facts (a thermometer, a house, or the cell itself); `cell` loses `digits`. */
+export function thermoEitherStep(digit: Digit, house: HouseRef, cell: Cell, homes: Extract<StepFacts, { kind: 'thermo-either' }>['homes'], digits: Digit[]): Step {
+  return step(
+    'thermo-either',
+    { kind: 'thermo-either', digit, house, cell, homes },
+    { focus: [...homes.map((h) => h.cell), cell], eliminations: [{ cell, digits }], reason: { houses: [house], thermometers: [1], cells: homes.map((h) => h.cell) }, difficulty: 3.4 },
+  )
+}
+
+/** Two tips (or bulbs): the digit's places in `house` each force the end of their thermometer; `elim` cells lose 9 (or 1). */
+export function thermoEndsStep(digit: Digit, house: HouseRef, end: 'tip' | 'bulb', homes: [Cell, number, Cell][], elim: Cell[]): Step {
+  return step(
+    'thermo-ends',
+    { kind: 'thermo-ends', digit, house, end, homes: homes.map(([c, thermometer, e]) => ({ cell: c, thermometer, end: e })), eliminated: elim },
+    { focus: [...homes.map(([c]) => c), ...homes.map(([, , e]) => e)], eliminations: elim.map((c) => ({ cell: c, digits: [end === 'tip' ? 9 : 1] })), difficulty: 4.25 },
+  )
+}
