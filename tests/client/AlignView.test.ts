@@ -2,35 +2,19 @@ import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest'
 import { screen, within } from '@testing-library/vue'
 import userEvent from '@testing-library/user-event'
 import type { Role } from '@shared/schemas/auth'
-import type { AlignmentRun, Recording } from '@shared/schemas/recording'
+import type { AlignmentRun } from '@shared/schemas/recording'
 import type { Outline } from '@shared/script'
 import type { OutlineRecord } from '@shared/schemas/studio'
 import App from '@/App.vue'
 import { outlineFor, recordFor } from '../helpers/studio-outline'
 import { api, apiPath, http, HttpResponse } from './msw'
 import { renderAt, settle } from './render'
-import { membership, saveSession, sessionFixture } from './support'
+import { membership, recordingFixture, saveSession, sessionFixture } from './support'
 
 const TAKE = '/channels/12/outlines/31'
 const ALIGN = `${TAKE}/align`
 
-function recording(overrides: Partial<Recording> = {}): Recording {
-  return {
-    id: 5,
-    outlineId: 31,
-    name: 'take-one.webm',
-    mime: 'audio/webm',
-    kind: 'audio',
-    sizeBytes: 480_000,
-    durationMs: 60_000,
-    current: true,
-    hasPeaks: true,
-    playback: 'ready',
-    uploadedBy: 'Ada Lane',
-    uploadedAt: '2026-11-30T09:00:00.000Z',
-    ...overrides,
-  }
-}
+const recording = recordingFixture
 
 function run(overrides: Partial<AlignmentRun> = {}): AlignmentRun {
   return {

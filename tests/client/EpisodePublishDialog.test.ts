@@ -3,31 +3,17 @@ import { screen, within } from '@testing-library/vue'
 import userEvent from '@testing-library/user-event'
 import type { Role } from '@shared/schemas/auth'
 import type { Episode, EpisodePublish } from '@shared/schemas/episode'
-import type { Recording } from '@shared/schemas/recording'
 import { toDescription } from '@shared/script'
 import App from '@/App.vue'
 import { outlineFor, recordFor } from '../helpers/studio-outline'
 import { api, apiPath, http, HttpResponse } from './msw'
 import { renderAt } from './render'
-import { membership, saveSession, sessionFixture } from './support'
+import { membership, recordingFixture, saveSession, sessionFixture } from './support'
 
 const TAKE = '/channels/12/outlines/31'
 const EPISODE = `${TAKE}/episode`
 
-const recording: Recording = {
-  id: 5,
-  outlineId: 31,
-  name: 'take-one.webm',
-  mime: 'audio/webm',
-  kind: 'audio',
-  sizeBytes: 480_000,
-  durationMs: 60_000,
-  current: true,
-  hasPeaks: true,
-  playback: 'ready',
-  uploadedBy: 'Ada Lane',
-  uploadedAt: '2026-11-30T09:00:00.000Z',
-}
+const recording = recordingFixture()
 
 /** The episode the server answers for what was sent, live from now. */
 function episodeFrom(body: EpisodePublish, overrides: Partial<Episode> = {}): Episode {

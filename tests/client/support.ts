@@ -1,3 +1,4 @@
+import type { Recording } from '@shared/schemas/recording'
 import { createPinia, setActivePinia } from 'pinia'
 import type { Pinia } from 'pinia'
 import { createMemoryHistory } from 'vue-router'
@@ -50,3 +51,22 @@ export function createHarness(routeList: RouteRecordRaw[] = routes): Harness {
 
 /** "r3c4" as the grid's cells are named for screen readers: "row 3, column 4". */
 export const spokenCell = (name: string): string => name.replace(/^r(\d)c(\d)$/, 'row $1, column $2')
+
+/** A take's current recording as the server lists it: a minute of audio, ready to play. */
+export function recordingFixture(overrides: Partial<Recording> = {}): Recording {
+  return {
+    id: 5,
+    outlineId: 31,
+    name: 'take-one.webm',
+    mime: 'audio/webm',
+    kind: 'audio',
+    sizeBytes: 480_000,
+    durationMs: 60_000,
+    current: true,
+    hasPeaks: true,
+    playback: 'ready',
+    uploadedBy: 'Ada Lane',
+    uploadedAt: '2026-11-30T09:00:00.000Z',
+    ...overrides,
+  }
+}

@@ -7,9 +7,10 @@
  * on the same side of it along thermometers are thermometer pointing, both easier to say. The cell
  * may be one of the places: then it is the digit, or the other place's thermometer bounds it.
  */
-import { CELL_HOUSES, HOUSES, digitsAbove, digitsBelow, digitsOf, houseRef } from '../../grid'
+import { CELL_HOUSES, digitsAbove, digitsBelow, digitsOf, houseRef } from '../../grid'
 import type { Board } from '../board'
 import type { Cell, FactsOf } from '../types'
+import { twoPlaceHouses } from './two-places'
 import { Picker, type Technique } from './deduction'
 import { TECHNIQUES } from './catalog'
 import { thermoOrder, type ThermoOrder } from './thermo-order'
@@ -21,24 +22,14 @@ export const thermoEither: Technique = {
     if (!board.thermometers.length) return null
     const order = thermoOrder(board)
     const picker = new Picker(near)
+    const places = twoPlaceHouses(board)
     for (let h = 0; h < 27 && !picker.settled; h++) {
-      const house = HOUSES[h]
       for (let d = 1; d <= 9; d++) {
-        const bit = 1 << (d - 1)
-        let a = -1
-        let b = -1
-        let count = 0
-        for (let i = 0; i < 9 && count <= 2; i++) {
-          const c = house[i]
-          if (board.digits[c] === d) count = 9
-          else if (!board.digits[c] && board.cand[c] & bit) {
-            if (count === 0) a = c
-            else b = c
-            count++
-          }
-        }
+        const a = places[(h * 9 + d - 1) * 2]!
+        if (a < 0) continue
+        const b = places[(h * 9 + d - 1) * 2 + 1]!
         // at least one place must lie on a thermometer
-        if (count !== 2 || !(order.related[a].length || order.related[b].length)) continue
+        if (!(order.related[a].length || order.related[b].length)) continue
         // a place itself: it is the digit, or the other place is and the thermometer between them bounds it
         tryPlace(board, order, picker, h, d, a, b)
         tryPlace(board, order, picker, h, d, b, a)

@@ -6,9 +6,10 @@
  * two bulbs is a 1. The tips aren't the 9's places in any one house, so this is no locked
  * candidate; d = 9 (the places are the tips themselves) is left to locked candidates.
  */
-import { HOUSES, PEERS, houseRef } from '../../grid'
+import { PEERS, houseRef } from '../../grid'
 import type { Board } from '../board'
 import type { Cell } from '../types'
+import { twoPlaceHouses } from './two-places'
 import { Picker, type Technique } from './deduction'
 import { TECHNIQUES } from './catalog'
 
@@ -22,25 +23,15 @@ export const thermoEnds: Technique = {
   find(board, near) {
     if (!board.thermometers.length) return null
     const picker = new Picker(near)
+    const places = twoPlaceHouses(board)
     const seesEnd = new Uint8Array(81)
     for (let h = 0; h < 27 && !picker.settled; h++) {
-      const house = HOUSES[h]
       for (let d = 2; d <= 8; d++) {
-        const bit = 1 << (d - 1)
-        let a = -1
-        let b = -1
-        let count = 0
-        for (let i = 0; i < 9 && count <= 2; i++) {
-          const c = house[i]
-          if (board.digits[c] === d) count = 9
-          else if (!board.digits[c] && board.cand[c] & bit) {
-            if (count === 0) a = c
-            else b = c
-            count++
-          }
-        }
+        const a = places[(h * 9 + d - 1) * 2]!
+        if (a < 0) continue
+        const b = places[(h * 9 + d - 1) * 2 + 1]!
         // both places must lie on thermometers
-        if (count !== 2 || !onThermometer(board, a) || !onThermometer(board, b)) continue
+        if (!onThermometer(board, a) || !onThermometer(board, b)) continue
         for (const end of ['tip', 'bulb'] as const) {
           const endBit = end === 'tip' ? 1 << 8 : 1
           for (const fa of forcedEnds(board, a, d, end)) {

@@ -3,9 +3,9 @@
  * in some house, one place seeing each cell. One of those two places is b, so the cell it sees
  * can't be b and is a: one of the two cells is a, and a cell that sees both can't be a.
  */
-import { HOUSES, POPCOUNT, digitsOf, houseRef } from '../../grid'
-import type { Board } from '../board'
+import { POPCOUNT, digitsOf, houseRef } from '../../grid'
 import type { Cell } from '../types'
+import { twoPlaceHouses } from './two-places'
 import { Picker, eliminationsOf, type Technique } from './deduction'
 import { TECHNIQUES } from './catalog'
 import { sees, seenByAll } from './xy-wing'
@@ -54,35 +54,6 @@ export const wWing: Technique = {
     }
     return picker.best
   },
-}
-
-/** For each house and digit (index house × 9 + digit − 1), its two places, or −1 when it has more or fewer. */
-function twoPlaceHouses(board: Board): Int16Array {
-  const out = new Int16Array(27 * 9 * 2).fill(-1)
-  for (let h = 0; h < 27; h++) {
-    const house = HOUSES[h]
-    for (let d = 1; d <= 9; d++) {
-      const bit = 1 << (d - 1)
-      let first = -1
-      let second = -1
-      let count = 0
-      for (let k = 0; k < 9 && count <= 2; k++) {
-        const c = house[k]
-        if (board.digits[c] === d) {
-          count = 3
-          break
-        }
-        if (board.digits[c] || !(board.cand[c] & bit)) continue
-        if (count === 0) first = c
-        else second = c
-        count++
-      }
-      if (count !== 2) continue
-      out[(h * 9 + d - 1) * 2] = first
-      out[(h * 9 + d - 1) * 2 + 1] = second
-    }
-  }
-  return out
 }
 
 /** The first house whose two places for `b` see `c1` and `c2` one each, with the place seeing `c1` first. */
