@@ -73,6 +73,13 @@ const DESCRIBE: FactsTable<string, [Described]> = {
     const [lx, ly] = f.link.cells
     return `${cellName(x)} and ${cellName(y)} hold only ${listDigits(f.digits)}, and the ${f.link.digit} in ${houseName(f.link.house)} is in ${cellName(lx)} or ${cellName(ly)}, which see them: one of them is ${f.digit} (W-wing), so ${removals(step.eliminations)}`
   },
+  'either-way': (f) => {
+    const places = f.sides.map((s) => cellName(s.cell))
+    const choice = f.house ? `The ${f.sides[0].digit} in ${houseName(f.house)} is in ${orList(places)}` : `${places[0]} is ${orList(f.sides.map((s) => String(s.digit)))}`
+    const side = (s: FactsOf<'either-way'>['sides'][number]) => `if ${cellName(s.cell)} = ${s.digit}: ${s.chain.length ? s.chain.map(describeLink).join(', then ') : 'that alone does it'}`
+    const outcome = [...f.placed.map((p) => `${cellName(p.cell)} = ${p.digit}`), ...(f.eliminated.length ? [removals(f.eliminated)] : [])].join(', ')
+    return `${choice}: ${f.sides.map(side).join('; ')}; either way ${outcome}`
+  },
   contradiction: (f) => {
     const moves = f.chain.map(describeLink)
     const end = f.emptyCell !== undefined ? `${cellName(f.emptyCell)} has no candidate left` : f.emptyHouse ? `${houseName(f.emptyHouse.house)} has no place for ${f.emptyHouse.digit}` : 'nothing fits'
@@ -99,6 +106,10 @@ function listCells(cells: Cell[]): string {
 
 function listDigits(digits: Digit[]): string {
   return listWords(digits.map(String))
+}
+
+function orList(words: string[]): string {
+  return `${words.slice(0, -1).join(', ')} or ${words[words.length - 1]}`
 }
 
 function listWords(words: string[]): string {

@@ -46,6 +46,7 @@ const techniqueIdSchema = z.enum([
   'xy-wing', // a two-digit pivot and two pincers: one pincer holds the shared digit
   'xyz-wing', // a three-digit pivot and two pincers: one of the three holds the shared digit
   'w-wing', // two matching two-digit cells joined by a digit's two places in a house
+  'either-way', // a two-way choice followed both ways a few moves: what both sides reach holds
   'contradiction', // assume a candidate, follow simple steps, reach an empty cell or house
 ])
 export type TechniqueId = z.infer<typeof techniqueIdSchema>
@@ -78,6 +79,9 @@ const chainLinkSchema = z.object({
   because: z.object({ cell: cellSchema, digit: digitSchema }).optional(),
 })
 export type ChainLink = z.infer<typeof chainLinkSchema>
+
+/** One side of an either-way step: "if `cell` is `digit`", and the moves that follow from it. */
+const eitherSideSchema = z.object({ cell: cellSchema, digit: digitSchema, chain: listOf(chainLinkSchema) })
 
 /** The range a thermometer cell is limited to. */
 const rangeSchema = z.object({ cell: cellSchema, min: digitSchema, max: digitSchema })
@@ -228,6 +232,16 @@ const stepFactsSchema = z.discriminatedUnion('kind', [
     /** the other digit's only two places in a house; cells[0] sees the link's cells[0], cells[1] its cells[1] */
     link: z.object({ house: houseRefSchema, digit: digitSchema, cells: listOf(cellSchema) }),
     eliminated: listOf(cellSchema),
+  }),
+  z.object({
+    kind: z.literal('either-way'),
+    /** set when the sides are a digit's only places in this house; absent when they are a cell's only candidates */
+    house: houseRefSchema.optional(),
+    /** the two or three assumptions, one of which holds, each with the moves (at most four) it leads through */
+    sides: listOf(eitherSideSchema).min(2).max(3),
+    /** what both sides reach */
+    placed: listOf(placementSchema),
+    eliminated: listOf(eliminationSchema),
   }),
   z.object({
     kind: z.literal('contradiction'),

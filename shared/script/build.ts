@@ -22,6 +22,9 @@ interface BuildOptions {
   targetMs?: number
 }
 
+/** No two lines within this many in a row open with the same word, where the phrasings allow it. */
+export const OPENER_WINDOW = 8
+
 /** Script lines, timing inputs and chapters for a solve path. Throws on input it can't narrate. */
 export function buildOutline(puzzle: Puzzle, result: SolveResult, options: BuildOptions = {}): Outline {
   const pace = checkPace(options.pace ?? TIMING.defaultPace)
@@ -49,7 +52,7 @@ export function buildOutline(puzzle: Puzzle, result: SolveResult, options: Build
   const lastOfFamily = new Map<string, number>()
   shapes.forEach((shape, i) => {
     const family = familyOf(src, shape)
-    const phrasing = choosePhrasing(src, shape, lines.slice(-1), lastOfFamily.get(family))
+    const phrasing = choosePhrasing(src, shape, lines.slice(-(OPENER_WINDOW - 1)), lastOfFamily.get(family))
     lastOfFamily.set(family, phrasing)
     const text = renderLine(src, shape, phrasing)
     lines.push({ id: i + 1, ...shape, text, edited: false, hidden: false, phrasing, estMs: estimateMs(text, pace, lineActions(src, shape)) })
@@ -121,6 +124,7 @@ function checkResult(result: SolveResult, puzzle: Puzzle, givens: string): Step[
     const f = step.facts
     if (f.kind === 'thermo-length' || f.kind === 'thermo-bounds') therms.push(f.thermometer)
     if (f.kind === 'contradiction') f.chain.forEach((l) => l.thermometer !== undefined && therms.push(l.thermometer))
+    if (f.kind === 'either-way') f.sides.forEach((side) => side.chain.forEach((l) => l.thermometer !== undefined && therms.push(l.thermometer)))
     for (const t of therms) if (t >= thermos.length) throw fail(`it uses thermometer ${t + 1}, and the puzzle has ${thermos.length}`)
     if (f.kind === 'thermo-length' && f.length !== thermos[f.thermometer].length) {
       throw fail(`it says thermometer ${f.thermometer + 1} has ${f.length} cells, and it has ${thermos[f.thermometer].length}`)

@@ -9,7 +9,7 @@ import { timeline } from './timing'
 /** Chapters: the rules, then one per segment of the solve, each at the line where it begins. */
 export function autoChapters(src: ScriptSource, lines: OutlineLine[]): Chapter[] {
   const chapters: Chapter[] = [{ lineId: lines[0].id, title: 'The rules', edited: false }]
-  for (const seg of segmentSteps(src.steps)) {
+  for (const seg of segmentSteps(src.steps, src.puzzle.thermometers)) {
     const line = lines.find((l) => l.steps.includes(seg.start))
     if (!line || chapters.some((c) => c.lineId === line.id)) continue
     chapters.push({ lineId: line.id, title: seg.title, edited: false })

@@ -10,15 +10,24 @@ import { segmentSteps, TRIVIAL } from './segments'
 /** Longer runs than this stop sounding like "a few quick ones". */
 export const MAX_RUN = 6
 
-/** Groups step indices into lines: runs of easy steps in one area together, everything else alone. */
+/**
+ * Groups step indices into lines: runs of easy steps in one area together, the thermometer lengths
+ * at the start together, everything else alone.
+ */
 export function groupSteps(steps: Step[], thermometers: Cell[][]): number[][] {
   const breakIn = steps.findIndex((s) => s.placements.length > 0)
-  const starts = new Set(segmentSteps(steps).map((s) => s.start))
+  const starts = new Set(segmentSteps(steps, thermometers).map((s) => s.start))
   // The break-in is a moment, and a chapter start opens a line: neither is buried in a run.
-  const foldable = (i: number) => TRIVIAL.has(steps[i].technique) && i !== breakIn && steps[i].placements.length > 0
+  // A run names digits and cells, not reasons: only singles a viewer can check on the grid fold.
+  const foldable = (i: number) => TRIVIAL.has(steps[i].technique) && i !== breakIn && steps[i].placements.length > 0 && blockersVisible(steps[i])
+  const lengthOnly = (i: number) => steps[i].facts.kind === 'thermo-length' && steps[i].placements.length === 0
   const groups: number[][] = []
   for (let i = 0; i < steps.length; i++) {
     const last = groups[groups.length - 1]
+    if (last !== undefined && lengthOnly(i) && last.every(lengthOnly) && last[last.length - 1] === i - 1) {
+      last.push(i)
+      continue
+    }
     const extend =
       last !== undefined &&
       foldable(i) &&
@@ -31,6 +40,17 @@ export function groupSteps(steps: Step[], thermometers: Cell[][]): number[][] {
     else groups.push([i])
   }
   return groups
+}
+
+/**
+ * True when a single rests only on digits on the grid: none of its other digits or other cells was
+ * ruled out by an earlier step (pencil marks a viewer may not have in mind).
+ */
+function blockersVisible(step: Step): boolean {
+  const f = step.facts
+  if (f.kind === 'single-cell') return f.seen.ruledOut.length === 0
+  if (f.kind === 'single-house') return (f.blockers ?? []).every((b) => 'peer' in b)
+  return true
 }
 
 /** True when the cells share a thermometer, a box, a row or a column. */

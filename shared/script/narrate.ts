@@ -12,6 +12,7 @@ import { hashNumbers, hashString, openerOf, rotation } from './pick'
 import {
   BREAK_IN,
   CONTRADICTION,
+  EITHER_WAY,
   EXPLAIN,
   FISH,
   HIDDEN_SUBSET,
@@ -19,16 +20,19 @@ import {
   LOCKED_LINE_BOX,
   NAKED_SUBSET,
   RUN,
+  SEGUES,
   SINGLE_CELL,
   SINGLE_HOUSE,
   THERMO_BOUNDS,
   THERMO_EITHER,
   THERMO_ENDS,
   THERMO_LENGTH,
+  THERMO_LENGTHS,
   THERMO_POINTING,
   W_WING,
   XY_WING,
   XYZ_WING,
+  briefContradiction,
   eliminationsWords,
   placementsWords,
   type Phrasing,
@@ -49,17 +53,35 @@ export function renderLine(src: ScriptSource, line: LineShape, phrasing: number,
   if (line.kind === 'intro') return pickOf(INTRO, phrasing)(credits(src))
   if (line.kind === 'outro') return pickOf(OUTRO, phrasing)(credits(src))
   const lead = leadOf(src, line)
-  const body = renderSteps(src, line, phrasing, n)
+  const body = withSegue(renderSteps(src, line, phrasing, n), segueOf(src, line, phrasing))
   return lead ? `${lead} ${body}` : body
+}
+
+/**
+ * A phrasing number past the line's count of phrasings also picks a segue ("Moving on,") said in
+ * front: how a line opens differently when every phrasing it has opens like a recent line.
+ */
+function segueOf(src: ScriptSource, line: LineShape, phrasing: number): string | undefined {
+  if (line.kind !== 'step' || leadOf(src, line)) return undefined
+  const k = Math.floor(phrasing / phrasingCount(src, line))
+  return k > 0 ? SEGUES[(k - 1) % SEGUES.length] : undefined
+}
+
+function withSegue(body: string, segue: string | undefined): string {
+  if (!segue) return body
+  if (segue.endsWith('.')) return `${segue} ${body}`
+  // "Moving on, where does…": the sentence carries on, so its first word loses its capital
+  return `${segue} ${/^[A-Z][a-z']/.test(body) ? body[0].toLowerCase() + body.slice(1) : body}`
 }
 
 function leadOf(src: ScriptSource, line: LineShape): string | undefined {
   if (line.kind !== 'step') return undefined
-  return segmentSteps(src.steps).find((s) => s.start === line.steps[0])?.lead
+  return segmentSteps(src.steps, src.puzzle.thermometers).find((s) => s.start === line.steps[0])?.lead
 }
 
 function renderSteps(src: ScriptSource, line: LineShape, phrasing: number, n: Namer): string {
   if (line.steps.length === 1) return renderStep(src, line.steps[0], phrasing, n)
+  if (isLengthsLine(src, line)) return lengthsLine(src, line.steps, phrasing, n)
   if (line.steps.every((i) => TRIVIAL.has(src.steps[i].technique))) {
     const run = runOf(src, line.steps, n)
     const text = usableRuns(run)[phrasing % usableRuns(run).length](run) as string
@@ -74,6 +96,7 @@ function phrasingCount(src: ScriptSource, line: LineShape): number {
   if (line.kind === 'intro') return INTRO.length
   if (line.kind === 'outro') return OUTRO.length
   if (line.steps.length === 1) return narrationOf(src.steps[line.steps[0]]).phrasings().length
+  if (isLengthsLine(src, line)) return THERMO_LENGTHS.length
   if (line.steps.every((i) => TRIVIAL.has(src.steps[i].technique))) {
     return usableRuns(runOf(src, line.steps, { style: 'words', thermometers: src.puzzle.thermometers })).length
   }
@@ -83,6 +106,7 @@ function phrasingCount(src: ScriptSource, line: LineShape): number {
 /** Lines whose phrasings should not repeat back to back share a family. */
 export function familyOf(src: ScriptSource, line: LineShape): string {
   if (line.kind !== 'step') return line.kind
+  if (isLengthsLine(src, line)) return 'thermo-lengths'
   if (line.steps.length > 1) return 'run'
   return narrationOf(src.steps[line.steps[0]]).family
 }
@@ -110,12 +134,19 @@ export function choosePhrasing(
   const order = rotation(count, seed)
   const n: Namer = { style: 'words', thermometers: src.puzzle.thermometers }
   const opens = (p: number) => openerOf(line.kind === 'step' ? renderSteps(src, line, p, n) : renderLine(src, line, p, 'words'))
-  return (
-    order.find((p) => p !== lastOfFamily && !openers.has(opens(p))) ??
-    order.find((p) => !openers.has(opens(p))) ??
-    order.find((p) => p !== lastOfFamily) ??
-    order[0]
-  )
+  // a stored phrasing may carry a segue (a multiple of count on top); the phrasing itself is the rest
+  const last = lastOfFamily === undefined ? undefined : lastOfFamily % count
+  const fresh = order.find((p) => p !== last && !openers.has(opens(p))) ?? order.find((p) => !openers.has(opens(p)))
+  if (fresh !== undefined) return fresh
+  const base = order.find((p) => p !== last) ?? order[0]
+  // Every phrasing opens like a recent line: a segue no recent line opened with goes in front.
+  if (line.kind === 'step' && !lead) {
+    for (let k = 0; k < SEGUES.length; k++) {
+      const segue = (seed + k) % SEGUES.length
+      if (!openers.has(openerOf(SEGUES[segue]))) return base + count * (segue + 1)
+    }
+  }
+  return base
 }
 
 function renderStep(src: ScriptSource, index: number, phrasing: number, n: Namer): string {
@@ -123,7 +154,8 @@ function renderStep(src: ScriptSource, index: number, phrasing: number, n: Namer
   const told = narrationOf(step)
   const parts: string[] = []
   if (told.explain && firstWithIdea(src.steps, index, told.explain.idea)) parts.push(told.explain.words())
-  parts.push(pickOf(told.phrasings(), phrasing)({ n, step, steps: src.steps }))
+  const gridBefore = () => digitsAfter(src.puzzle.givens, src.steps, index)
+  parts.push(pickOf(told.phrasings(), phrasing)({ n, step, steps: src.steps, index, gridBefore }))
   if (told.sayAlso.eliminations) {
     const elim = eliminationsWords(step, n)
     if (elim) parts.push(elim)
@@ -132,6 +164,24 @@ function renderStep(src: ScriptSource, index: number, phrasing: number, n: Namer
     parts.push(`That gives us ${placementsWords(step.placements, n)}.`)
   }
   return withBreakIn(src, [index], parts.join(' '), phrasing)
+}
+
+/** Several thermometer-length steps in one line: the lengths said together, once, at the start. */
+function isLengthsLine(src: ScriptSource, line: LineShape): boolean {
+  return line.kind === 'step' && line.steps.length > 1 && line.steps.every((i) => src.steps[i].facts.kind === 'thermo-length')
+}
+
+function lengthsLine(src: ScriptSource, steps: number[], phrasing: number, n: Namer): string {
+  const byLength = new Map<number, string[]>()
+  for (const i of steps) {
+    const f = src.steps[i].facts
+    if (f.kind !== 'thermo-length') continue
+    byLength.set(f.length, [...(byLength.get(f.length) ?? []), thermoWords(f.thermometer, n)])
+  }
+  const groups = [...byLength.entries()].sort((a, b) => b[0] - a[0]).map(([length, names]) => ({ length, names }))
+  const text = pickOf(THERMO_LENGTHS, phrasing)({ groups })
+  const explain = firstWithIdea(src.steps, steps[0], 'thermo-length') ? `${EXPLAIN['thermo-length']()} ` : ''
+  return withBreakIn(src, steps, `${explain}${text}`, phrasing)
 }
 
 function withBreakIn(src: ScriptSource, steps: number[], text: string, phrasing: number): string {
@@ -143,6 +193,23 @@ function withBreakIn(src: ScriptSource, steps: number[], text: string, phrasing:
 function firstWithIdea(steps: Step[], index: number, idea: string): boolean {
   for (let i = 0; i < index; i++) if (narrationOf(steps[i]).explain?.idea === idea) return false
   return true
+}
+
+/**
+ * A what-if line said briefly, for fitting a script to a length: the assumption, where it breaks and
+ * what that gives, with the links left for the grid to show. A folded line says each step in order.
+ */
+export function briefWhatIf(src: ScriptSource, line: LineShape): string {
+  const n: Namer = { style: src.names, thermometers: src.puzzle.thermometers }
+  return line.steps
+    .map((i) => {
+      const step = src.steps[i]
+      const f = step.facts
+      if (f.kind !== 'contradiction') return renderStep(src, i, 0, n)
+      const gives = step.placements.length > 0 ? ` That gives us ${placementsWords(step.placements, n)}.` : ''
+      return `${briefContradiction(f, n)}${gives}`
+    })
+    .join(' ')
 }
 
 /** How a kind of step is said. Fields that cost something are functions, read only when needed. */
@@ -229,6 +296,12 @@ const NARRATION: FactsTable<Narration> = {
     phrasings: () => withFacts(W_WING, f),
     sayAlso: ELIMINATIONS_AND_PLACEMENTS,
   }),
+  'either-way': (f) => ({
+    family: f.kind,
+    explain: { idea: f.kind, words: EXPLAIN['either-way'] },
+    phrasings: () => withFacts(EITHER_WAY, f),
+    sayAlso: NOTHING_MORE,
+  }),
   contradiction: (f) => ({
     family: f.kind,
     explain: { idea: f.kind, words: EXPLAIN.contradiction },
@@ -262,7 +335,7 @@ function runOf(src: ScriptSource, steps: number[], n: Namer): Run {
     const index = h.of(cells[0])
     if (cells.every((c) => h.of(c) === index)) {
       const house = { kind: h.kind, index }
-      return { placements, area: houseWords(house, n), finishes: filled(houseCells(house)), n }
+      return { placements, area: houseWords(house, n), finishes: filled(houseCells(house)), line: h.kind === 'box' ? undefined : h.kind, n }
     }
   }
   return { placements, area: null, finishes: false, n }

@@ -5,7 +5,7 @@
  */
 import { TECHNIQUES } from '../engine/techniques/catalog'
 import type { Cell, ChainLink, Digit, FactsKind, FactsOf, HouseRef, Step } from '../engine/types'
-import { boxOf, colOf, rowOf } from '../grid'
+import { boxOf, colOf, houseCells, rowOf } from '../grid'
 import {
   aDigit,
   andList,
@@ -18,7 +18,7 @@ import {
   orList,
   plural,
   thermoWords,
-  thisHouse,
+  cellsInHouse,
   type Namer,
 } from './words'
 
@@ -28,13 +28,20 @@ export interface Said {
   step: Step
   /** the whole path, so a step can name the earlier steps it relies on (singles' removers) */
   steps?: readonly Step[]
+  /** the step's place in the path, so a line can tell what the line before it was about */
+  index?: number
+  /** the digits on the grid just before the step (givens and placements so far) */
+  gridBefore?: () => ArrayLike<number>
 }
 
 export type Phrasing<K extends FactsKind> = (f: FactsOf<K>, s: Said) => string
 
-/** "the cell at row 3, column 4" in words, "r3c4" in coordinates. */
+/**
+ * A cell by its name alone: "row 3, column 4" or "r3c4". A filler such as "the cell at" said before
+ * every cell of a long script is what a viewer hears most, and it adds nothing.
+ */
 function theCell(cell: Cell, n: Namer): string {
-  return n.style === 'coords' ? cellWords(cell, n) : `the cell at ${cellWords(cell, n)}`
+  return cellWords(cell, n)
 }
 
 // A single says the true reason for every other digit: the digits placed in its row, column or box
@@ -85,14 +92,14 @@ export const SINGLE_HOUSE: Phrasing<'single-house'>[] = [
   (f, s) => {
     const why = blockersWords(f, s)
     return why
-      ? `There's just one home for ${aDigit(f.digit)} in ${thisHouse(f.house)}. ${why}, so it's ${theCell(f.cell, s.n)}.`
-      : `There's just one home for ${aDigit(f.digit)} in ${thisHouse(f.house)}, and it's ${theCell(f.cell, s.n)}.`
+      ? `There's just one home for ${aDigit(f.digit)} in ${hereOrNamed(f.house, s)}. ${why}, so it's ${theCell(f.cell, s.n)}.`
+      : `There's just one home for ${aDigit(f.digit)} in ${hereOrNamed(f.house, s)}, and it's ${theCell(f.cell, s.n)}.`
   },
 ]
 
 export const NAKED_SUBSET: Phrasing<'subset'>[] = [
   (f, s) =>
-    `These ${countWords(f.cells.length)} cells in ${houseWords(f.house, s.n)}, ${cellsWords(f.cells, s.n)}, can only be ${orList(f.digits)} between them. So those digits are spoken for, and nothing else in ${thisHouse(f.house)} can be ${f.digits.length === 2 ? 'either' : 'any of them'}.`,
+    `These ${countWords(f.cells.length)} cells in ${houseWords(f.house, s.n)}, ${cellsInHouse(f.cells, f.house, s.n)}, can only be ${orList(f.digits)} between them. So those digits are spoken for, and nothing else in the ${f.house.kind} can be ${f.digits.length === 2 ? 'either' : 'any of them'}.`,
   (f, s) =>
     `Look at ${cellsWords(f.cells, s.n)}: ${orList(f.digits)} and nothing else. That's a ${subsetName(f.cells.length)}, so ${andList(f.digits)} have to live in these cells.`,
   (f, s) =>
@@ -101,11 +108,11 @@ export const NAKED_SUBSET: Phrasing<'subset'>[] = [
 
 export const HIDDEN_SUBSET: Phrasing<'subset'>[] = [
   (f, s) =>
-    `In ${houseWords(f.house, s.n)}, the ${andList(f.digits)} only fit in ${cellsWords(f.cells, s.n)}. Those cells have to hold them, so anything else pencilled there can go.`,
+    `In ${houseWords(f.house, s.n)}, the ${andList(f.digits)} only fit in ${cellsInHouse(f.cells, f.house, s.n)}. Those cells have to hold them, so anything else pencilled there can go.`,
   (f, s) =>
-    `Where can ${andList(f.digits)} go in ${houseWords(f.house, s.n)}? Only in ${cellsWords(f.cells, s.n)}. That's a hidden ${subsetName(f.cells.length)}: these cells are taken.`,
+    `Where can ${andList(f.digits)} go in ${houseWords(f.house, s.n)}? Only in ${cellsInHouse(f.cells, f.house, s.n)}. That's a hidden ${subsetName(f.cells.length)}: these cells are taken.`,
   (f, s) =>
-    `${capitalise(houseWords(f.house, s.n))} has just ${countWords(f.cells.length)} spots for its ${andList(f.digits)}, ${cellsWords(f.cells, s.n)}. Nothing else fits in those cells now.`,
+    `${capitalise(houseWords(f.house, s.n))} has just ${countWords(f.cells.length)} spots for its ${andList(f.digits)}: ${cellsInHouse(f.cells, f.house, s.n)}. Nothing else fits in those cells now.`,
 ]
 
 export const LOCKED_BOX_LINE: Phrasing<'locked'>[] = [
@@ -135,28 +142,52 @@ export const THERMO_LENGTH: Phrasing<'thermo-length'>[] = [
     `With ${countWords(f.length)} cells to climb, ${thermoWords(f.thermometer, s.n)} leaves each of them only ${countWords(10 - f.length)} options: the bulb ${lengthRange(f, 0)}, the tip ${lengthRange(f, f.ranges.length - 1)}.`,
 ]
 
+// The cell a bound comes from is said as it stands: "r7c1 is an 8" when it holds a digit, its
+// smallest (largest) option otherwise, with the digits in sight that make it so.
+/** The lengths of several thermometers, grouped by length, said in one sentence at the start. */
+export interface Lengths {
+  groups: { length: number; names: string[] }[]
+}
+
+export const THERMO_LENGTHS: ((l: Lengths) => string)[] = [
+  (l) => `Let's size up the thermometers first: ${lengthGroups(l)}.`,
+  (l) => `First, the lengths: ${lengthGroups(l)}.`,
+  (l) => `A quick look at how long each thermometer is: ${lengthGroups(l)}.`,
+]
+
+/** "the long thermometer has seven cells, so its bulb is 3 at most and its tip 7 or more; and …" */
+function lengthGroups(l: Lengths): string {
+  const parts = l.groups.map(({ length, names }) =>
+    names.length === 1
+      ? `${names[0]} has ${countWords(length)} cells, so its bulb is ${10 - length} at most and its tip ${length} or more`
+      : `${andList(names)} have ${countWords(length)} cells each, so their bulbs are ${10 - length} at most and their tips ${length} or more`,
+  )
+  if (parts.length < 2) return parts.join('')
+  return `${parts.slice(0, -1).join('; ')}; and ${parts[parts.length - 1]}`
+}
+
 export const THERMO_BOUNDS: Phrasing<'thermo-bounds'>[] = [
   (f, s) =>
     f.direction === 'min'
-      ? `On ${thermoWords(f.thermometer, s.n)}, ${thermoCell(f.fromCell, f.thermometer, s.n)} can't be lower than ${f.fromDigit}${withSudoku(f)}. Everything after it has to climb higher: ${rangesWords(f, s.n)}.`
-      : `On ${thermoWords(f.thermometer, s.n)}, ${thermoCell(f.fromCell, f.thermometer, s.n)} can't go above ${f.fromDigit}${withSudoku(f)}. The cells before it have to stay below that: ${rangesWords(f, s.n)}.`,
+      ? `On ${thermoWords(f.thermometer, s.n)}, ${boundFrom(f, s)}. Everything after it has to climb higher: ${rangesWords(f, s.n)}.`
+      : `On ${thermoWords(f.thermometer, s.n)}, ${boundFrom(f, s)}. The cells before it have to stay below that: ${rangesWords(f, s.n)}.`,
   (f, s) =>
     f.direction === 'min'
-      ? `Let's push ${thermoWords(f.thermometer, s.n)} upwards. ${capitalise(thermoCell(f.fromCell, f.thermometer, s.n))} is at least ${f.fromDigit}${withSudoku(f)}, and the digits must keep rising, so ${rangesWords(f, s.n)}.`
-      : `Let's squeeze ${thermoWords(f.thermometer, s.n)} from the top. ${capitalise(thermoCell(f.fromCell, f.thermometer, s.n))} is ${f.fromDigit} at most${withSudoku(f)}, and everything nearer the bulb must be smaller, so ${rangesWords(f, s.n)}.`,
+      ? `Let's push ${thermoWords(f.thermometer, s.n)} upwards. ${capitalise(boundFrom(f, s))}, and the digits must keep rising, so ${rangesWords(f, s.n)}.`
+      : `Let's squeeze ${thermoWords(f.thermometer, s.n)} from the top. ${capitalise(boundFrom(f, s))}, and everything nearer the bulb must be smaller, so ${rangesWords(f, s.n)}.`,
   (f, s) =>
     f.direction === 'min'
-      ? `Now follow ${thermoWords(f.thermometer, s.n)} up from ${thermoCell(f.fromCell, f.thermometer, s.n)}, which starts at ${f.fromDigit} or more${withSudoku(f)}. Each step up needs a bigger digit: ${rangesWords(f, s.n)}.`
-      : `Now work down ${thermoWords(f.thermometer, s.n)} from ${thermoCell(f.fromCell, f.thermometer, s.n)}, which tops out at ${f.fromDigit}${withSudoku(f)}. Each step down needs a smaller digit: ${rangesWords(f, s.n)}.`,
+      ? `Now follow ${thermoWords(f.thermometer, s.n)} up: ${boundFrom(f, s)}. Each step up needs a bigger digit: ${rangesWords(f, s.n)}.`
+      : `Now work down ${thermoWords(f.thermometer, s.n)}: ${boundFrom(f, s)}. Each step down needs a smaller digit: ${rangesWords(f, s.n)}.`,
 ]
 
 export const THERMO_POINTING: Phrasing<'thermo-pointing'>[] = [
   (f, s) =>
-    `Where can the ${f.digit} go in ${houseWords(f.house, s.n)}? Only in ${cellsWords(pointingHomes(f), s.n)}, and each of those sits ${nearerEnd(f.side)} than ${theCell(f.cell, s.n)} on ${pointingThermos(f, s.n)}.${pointingGap(f)} Whichever it is, ${theCell(f.cell, s.n)} has to be ${pointingBound(f)}.`,
+    `Where can the ${f.digit} go in ${houseWords(f.house, s.n)}? Only in ${cellsInHouse(pointingHomes(f), f.house, s.n)}, and each of those sits ${nearerEnd(f.side)} than ${theCell(f.cell, s.n)} on ${pointingThermos(f, s.n)}.${pointingGap(f)} Whichever it is, ${theCell(f.cell, s.n)} has to be ${pointingBound(f)}.`,
   (f, s) =>
-    `${capitalise(houseWords(f.house, s.n))} has to put its ${f.digit} in ${cellsOr(pointingHomes(f), s.n)}. Each comes ${f.side} ${theCell(f.cell, s.n)} on ${pointingThermos(f, s.n)}, so that cell sits ${f.side === 'before' ? 'above' : 'below'} a ${f.digit} either way.${pointingGap(f)} That makes it ${pointingBound(f)}.`,
+    `${capitalise(houseWords(f.house, s.n))} has to put its ${f.digit} in ${cellsOr(pointingHomes(f), s.n, f.house)}. Each comes ${f.side} ${theCell(f.cell, s.n)} on ${pointingThermos(f, s.n)}, so that cell sits ${f.side === 'before' ? 'above' : 'below'} a ${f.digit} either way.${pointingGap(f)} That makes it ${pointingBound(f)}.`,
   (f, s) =>
-    `Look at the ${f.digit}s in ${houseWords(f.house, s.n)}: ${cellsWords(pointingHomes(f), s.n)}, all ${nearerEnd(f.side)} on ${pointingThermos(f, s.n)} than ${theCell(f.cell, s.n)}. We don't know which one holds it, and we don't need to.${pointingGap(f)} The cell is ${pointingBound(f)} whichever it is.`,
+    `Look at the ${f.digit}s in ${houseWords(f.house, s.n)}: ${cellsInHouse(pointingHomes(f), f.house, s.n)}, all ${nearerEnd(f.side)} on ${pointingThermos(f, s.n)} than ${theCell(f.cell, s.n)}. We don't know which one holds it, and we don't need to.${pointingGap(f)} The cell is ${pointingBound(f)} whichever it is.`,
 ]
 
 export const THERMO_EITHER: Phrasing<'thermo-either'>[] = [
@@ -164,29 +195,29 @@ export const THERMO_EITHER: Phrasing<'thermo-either'>[] = [
     const other = selfOther(f)
     if (other)
       return `The ${f.digit} in ${houseWords(f.house, s.n)} is either in ${theCell(f.cell, s.n)} itself or in ${cellWords(other.cell, s.n)}, ${thermoPlace(other, s.n)}. Either way, ${theCell(f.cell, s.n)} is ${selfRange(f, other)}, so it can't be ${orList(eitherDigits(s))}.`
-    return `The ${f.digit} in ${houseWords(f.house, s.n)} has two homes, ${cellsWords(eitherHomes(f), s.n)}. If it's ${cellWords(f.homes[0].cell, s.n)}, ${eitherBranch(f, 0, s.n)}. If it's ${cellWords(f.homes[1].cell, s.n)}, ${eitherBranch(f, 1, s.n)}. Either way, ${theCell(f.cell, s.n)} can't be ${orList(eitherDigits(s))}.`
+    return `The ${f.digit} in ${houseWords(f.house, s.n)} has two homes, ${cellsInHouse(eitherHomes(f), f.house, s.n)}. If it's ${cellWords(f.homes[0].cell, s.n)}, ${eitherBranch(f, 0, s.n)}. If it's ${cellWords(f.homes[1].cell, s.n)}, ${eitherBranch(f, 1, s.n)}. Either way, ${theCell(f.cell, s.n)} can't be ${orList(eitherDigits(s))}.`
   },
   (f, s) => {
     const other = selfOther(f)
     if (other)
-      return `Only two cells can take the ${f.digit} in ${houseWords(f.house, s.n)}: ${cellsWords(eitherHomes(f), s.n)}. If it isn't ${theCell(f.cell, s.n)}, it's ${cellWords(other.cell, s.n)}, and then ${eitherBranch(f, f.homes.indexOf(other), s.n)}. So ${theCell(f.cell, s.n)} is ${selfRange(f, other)}, never ${orList(eitherDigits(s))}.`
-    return `Only two cells can take the ${f.digit} in ${houseWords(f.house, s.n)}: ${cellsWords(eitherHomes(f), s.n)}. With the ${f.digit} in ${cellWords(f.homes[0].cell, s.n)}, ${eitherBranch(f, 0, s.n)}; with it in ${cellWords(f.homes[1].cell, s.n)}, ${eitherBranch(f, 1, s.n)}. So ${theCell(f.cell, s.n)} loses ${andList(eitherDigits(s))} whichever way it goes.`
+      return `Only two cells can take the ${f.digit} in ${houseWords(f.house, s.n)}: ${cellsInHouse(eitherHomes(f), f.house, s.n)}. If it isn't ${theCell(f.cell, s.n)}, it's ${cellWords(other.cell, s.n)}, and then ${eitherBranch(f, f.homes.indexOf(other), s.n)}. So ${theCell(f.cell, s.n)} is ${selfRange(f, other)}, never ${orList(eitherDigits(s))}.`
+    return `Only two cells can take the ${f.digit} in ${houseWords(f.house, s.n)}: ${cellsInHouse(eitherHomes(f), f.house, s.n)}. With the ${f.digit} in ${cellWords(f.homes[0].cell, s.n)}, ${eitherBranch(f, 0, s.n)}; with it in ${cellWords(f.homes[1].cell, s.n)}, ${eitherBranch(f, 1, s.n)}. So ${theCell(f.cell, s.n)} loses ${andList(eitherDigits(s))} whichever way it goes.`
   },
   (f, s) => {
     const other = selfOther(f)
     if (other)
-      return `Here's a neat one: ${houseWords(f.house, s.n)} needs its ${f.digit} in ${cellsOr(eitherHomes(f), s.n)}. Either ${theCell(f.cell, s.n)} takes it, or ${cellWords(other.cell, s.n)} does and ${eitherBranch(f, f.homes.indexOf(other), s.n)}. Both ways rule out ${orList(eitherDigits(s))} there.`
-    return `Here's a neat one: ${houseWords(f.house, s.n)} needs its ${f.digit} in ${cellsOr(eitherHomes(f), s.n)}. Put it in the first, and ${eitherBranch(f, 0, s.n)}. Put it in the second, and ${eitherBranch(f, 1, s.n)}. Both ways rule out ${orList(eitherDigits(s))} for ${theCell(f.cell, s.n)}.`
+      return `Here's a neat one: ${houseWords(f.house, s.n)} needs its ${f.digit} in ${cellsOr(eitherHomes(f), s.n, f.house)}. Either ${theCell(f.cell, s.n)} takes it, or ${cellWords(other.cell, s.n)} does and ${eitherBranch(f, f.homes.indexOf(other), s.n)}. Both ways rule out ${orList(eitherDigits(s))} there.`
+    return `Here's a neat one: ${houseWords(f.house, s.n)} needs its ${f.digit} in ${cellsOr(eitherHomes(f), s.n, f.house)}. Put it in the first, and ${eitherBranch(f, 0, s.n)}. Put it in the second, and ${eitherBranch(f, 1, s.n)}. Both ways rule out ${orList(eitherDigits(s))} for ${theCell(f.cell, s.n)}.`
   },
 ]
 
 export const THERMO_ENDS: Phrasing<'thermo-ends'>[] = [
   (f, s) =>
-    `The ${f.digit} in ${houseWords(f.house, s.n)} goes in ${cellsOr(endsHomes(f), s.n)}. Each of those has exactly ${plural(endsGap(f), 'cell', 'cells')} ${f.end === 'tip' ? 'above' : 'below'} it on its thermometer, so whichever holds the ${f.digit}, ${endsFill(f)}. One of these two ${f.end}s, ${cellsWords(endsEnds(f), s.n)}, is ${aDigit(endDigit(f))}, so a cell that sees both can't be.`,
+    `The ${f.digit} in ${houseWords(f.house, s.n)} goes in ${cellsOr(endsHomes(f), s.n, f.house)}. Each of those has exactly ${plural(endsGap(f), 'cell', 'cells')} ${f.end === 'tip' ? 'above' : 'below'} it on its thermometer, so whichever holds the ${f.digit}, ${endsFill(f)}. One of these two ${f.end}s, ${cellsWords(endsEnds(f), s.n)}, is ${aDigit(endDigit(f))}, so a cell that sees both can't be.`,
   (f, s) =>
-    `Look at the ${f.digit}s in ${houseWords(f.house, s.n)}: just ${cellsWords(endsHomes(f), s.n)}. From either one, the thermometer has only ${plural(endsGap(f), 'cell', 'cells')} left ${f.end === 'tip' ? 'to climb to the tip' : 'to drop to the bulb'}, so there's no slack: ${endsFill(f)}. That puts ${aDigit(endDigit(f))} on ${cellsOr(endsEnds(f), s.n)}, and anything that sees both ${f.end}s loses its ${endDigit(f)}.`,
+    `Look at the ${f.digit}s in ${houseWords(f.house, s.n)}: just ${cellsInHouse(endsHomes(f), f.house, s.n)}. From either one, the thermometer has only ${plural(endsGap(f), 'cell', 'cells')} left ${f.end === 'tip' ? 'to climb to the tip' : 'to drop to the bulb'}, so there's no slack: ${endsFill(f)}. That puts ${aDigit(endDigit(f))} on ${cellsOr(endsEnds(f), s.n)}, and anything that sees both ${f.end}s loses its ${endDigit(f)}.`,
   (f, s) =>
-    `Here's a lovely bit of thermometer logic. Whichever of ${cellsWords(endsHomes(f), s.n)} holds the ${f.digit} for ${houseWords(f.house, s.n)}, ${endsFill(f)}. So the ${endDigit(f)} sits on one of two ${f.end}s, ${cellsWords(endsEnds(f), s.n)}, and no cell that sees both of them can be ${aDigit(endDigit(f))}.`,
+    `Here's a lovely bit of thermometer logic. Whichever of ${cellsInHouse(endsHomes(f), f.house, s.n)} holds the ${f.digit} for ${houseWords(f.house, s.n)}, ${endsFill(f)}. So the ${endDigit(f)} sits on one of two ${f.end}s, ${cellsWords(endsEnds(f), s.n)}, and no cell that sees both of them can be ${aDigit(endDigit(f))}.`,
 ]
 
 // A long what-if (more than six links) is announced as one, so the viewer knows to hold on.
@@ -198,6 +229,39 @@ export const CONTRADICTION: Phrasing<'contradiction'>[] = [
   (f, s) =>
     `${f.long ? "Here's a longer one, so bear with me. " : ''}Let's try ${aDigit(f.assumed)} in ${theCell(f.cell, s.n)} and see what happens. ${chainWords(f, s.n, ['Straight away,', 'Then', 'And then'])} ${breakWords(f, s.n)}. That's impossible, so the ${f.assumed} goes.`,
 ]
+
+// Each side is told link by link (at most four) with what pushed each, then what every side gives.
+export const EITHER_WAY: Phrasing<'either-way'>[] = [
+  (f, s) => `${eitherChoice(f, s.n)} ${f.sides.map((_, i) => eitherSide(f, i, s.n, ['Then', 'And'])).join(' ')} Either way, ${eitherOutcome(f, s.n)}.`,
+  (f, s) => `Let's try each way. ${eitherChoice(f, s.n)} ${f.sides.map((_, i) => eitherSide(f, i, s.n, ['That means', 'Then'])).join(' ')} So whichever it is, ${eitherOutcome(f, s.n)}.`,
+]
+
+/** "The 2 in row 6 can only go in r6c1 or r6c2." / "R5c5 can only be an 8 or a 9" is avoided: the cell comes second. */
+function eitherChoice(f: FactsOf<'either-way'>, n: Namer): string {
+  if (f.house) return `The ${f.sides[0].digit} in ${houseWords(f.house, n)} can only go in ${orList(f.sides.map((side) => cellWords(side.cell, n)))}.`
+  return `There are only ${countWords(f.sides.length)} options for ${theCell(f.sides[0].cell, n)}: ${orList(f.sides.map((side) => aDigit(side.digit)))}.`
+}
+
+function eitherSide(f: FactsOf<'either-way'>, i: number, n: Namer, connectives: [string, string]): string {
+  const side = f.sides[i]
+  const assumed = { cell: side.cell, assumed: side.digit, chain: side.chain }
+  const opening = f.house ? `If it's ${cellWords(side.cell, n)},` : `If it's ${aDigit(side.digit)},`
+  // no move needed: the assumed digit itself settles it (the cell holds it, or a cell in view can't)
+  if (!side.chain.length) return f.house ? `${opening} it holds the ${side.digit} itself, and that already settles it.` : `${opening} that ${side.digit} already settles it.`
+  const links = side.chain.map((link, k) => `${k === 0 ? '' : `${connectives[k % 2]} `}${chainLinkWords(link, assumed, k, n)}.`)
+  return `${opening} ${links.join(' ')}`
+}
+
+function eitherOutcome(f: FactsOf<'either-way'>, n: Namer): string {
+  const placed = f.placed.map((p) => `${cellWords(p.cell, n)} is ${aDigit(p.digit)}`)
+  const removed = f.eliminated.map((e) => `${cellWords(e.cell, n)} can't be ${orList(e.digits.map(aDigit))}`)
+  return andList([...placed, ...removed])
+}
+
+/** A what-if in one breath, when a script must be cut to length: the assumption and where it breaks. */
+export function briefContradiction(f: FactsOf<'contradiction'>, n: Namer): string {
+  return `${capitalise(aDigit(f.assumed))} in ${theCell(f.cell, n)} can't work: follow what it forces and ${breakWords(f, n)}. So it isn't ${aDigit(f.assumed)}.`
+}
 
 export const FISH: Phrasing<'fish'>[] = [
   (f, s) => {
@@ -287,8 +351,13 @@ export const EXPLAIN = {
     `Now a middle cell with three options, and two partners it sees, each holding one of them plus a digit all three share. Whatever the middle cell is, that shared digit lands in one of the three.`,
   'w-wing': () =>
     `Two cells far apart with the same two options can be tied together by a digit that has only two places in some house: whichever place takes it, one of the two cells is left with its other option.`,
+  'either-way': () =>
+    `When a cell has only two or three options, or a digit only two or three places, we can follow each one for a few moves. Whatever they all lead to has to be true.`,
   contradiction: () => `Nothing simple is left, so we'll test an idea: put a digit in, follow only what's forced, and see if the grid breaks.`,
 } as const
+
+/** Said in front of a line only when every phrasing it has would open like one of the lines just before. */
+export const SEGUES = ['Moving on,', 'Right,', 'Next,', 'Meanwhile,', 'Okay,', 'Good.', 'After that,', 'From there,', 'Carrying on,', 'Alright,']
 
 /** A person's small reactions at the first digit of the solve. */
 export const BREAK_IN = ["That's the break-in.", "And there's our first digit. That's the break-in.", "Oh, that's nice. That's the break-in."]
@@ -300,6 +369,8 @@ export interface Run {
   area: string | null
   /** true when the run fills the last empty cells of that area */
   finishes: boolean
+  /** set when the area is a row or a column, so cells are told by the other coordinate alone */
+  line?: 'row' | 'column'
   n: Namer
 }
 export const RUN: ((r: Run) => string | null)[] = [
@@ -434,6 +505,12 @@ function earlierStepWords(s: Said, index: number): string {
       return `the bounds along ${thermoWords(f.thermometer, n)}`
     case 'contradiction':
       return `the what-if at ${cellWords(f.cell, n)}`
+    case 'thermo-either':
+      return `the two places for the ${f.digit} in ${houseWords(f.house, n)}`
+    case 'thermo-ends':
+      return `the two ${f.end}s for the ${f.digit} in ${houseWords(f.house, n)}`
+    case 'thermo-pointing':
+      return `the ${f.digit}s of ${houseWords(f.house, n)} on ${pointingThermos(f, n)}`
     default: {
       // techniques added later: a trade name where the trade has one, else where the step looked
       const term = TECHNIQUES[step.technique].tradeTerm
@@ -444,6 +521,18 @@ function earlierStepWords(s: Said, index: number): string {
       return h ? `the step in ${houseWords(h, n)}` : 'an earlier step'
     }
   }
+}
+
+/** "this box" only when the line before was about that same house; otherwise the house by name. */
+function hereOrNamed(house: HouseRef, s: Said): string {
+  const prev = s.index !== undefined && s.index > 0 ? s.steps?.[s.index - 1] : undefined
+  return prev && stepIsIn(prev, house) ? `this ${house.kind}` : houseWords(house, s.n)
+}
+
+/** True when everything a step placed, or else everything it highlighted, lies in the house. */
+function stepIsIn(step: Step, house: HouseRef): boolean {
+  const cells = step.placements.length > 0 ? step.placements.map((p) => p.cell) : step.focus
+  return cells.length > 0 && cells.every((c) => houseCells(house).includes(c))
 }
 
 function fishName(f: FactsOf<'fish'>): string {
@@ -493,36 +582,70 @@ function tipMin(f: FactsOf<'thermo-length'>): number {
 function lengthRange(f: FactsOf<'thermo-length'>, i: number): string {
   const r = f.ranges[i]
   if (!r) return 'is squeezed'
-  return r.min === r.max ? `has to be ${r.min}` : `${r.min} to ${r.max}`
+  return r.min === r.max ? `has to be ${r.min}` : rangeWords(r.min, r.max)
 }
 
-function withSudoku(f: FactsOf<'thermo-bounds'>): string {
-  return f.withSudoku ? `, once we count what its row, column and box already hold` : ''
+/**
+ * Where a bound starts: "r7c1 is an 8" for a given or placed digit; else "r6c7 is at least 3, with
+ * the 1 and 2 already in its row", naming only digits a viewer can see in the cell's houses.
+ */
+function boundFrom(f: FactsOf<'thermo-bounds'>, s: Said): string {
+  const cell = thermoCell(f.fromCell, f.thermometer, s.n)
+  const grid = s.gridBefore?.()
+  const placed = grid?.[f.fromCell] ?? 0
+  if (placed !== 0) return `${cell} is ${aDigit(placed)}`
+  const bound = f.direction === 'min' ? `${cell} is at least ${f.fromDigit}` : `${cell} is at most ${f.fromDigit}`
+  if (!f.withSudoku || !grid) return bound
+  const beyond = f.direction === 'min' ? (d: number) => d < f.fromDigit : (d: number) => d > f.fromDigit
+  const seen = (['row', 'column', 'box'] as const)
+    .map((kind) => {
+      const house = { kind, index: kind === 'row' ? rowOf(f.fromCell) : kind === 'column' ? colOf(f.fromCell) : boxOf(f.fromCell) }
+      return { kind, digits: houseCells(house).map((c) => grid[c]).filter((d) => d !== 0 && beyond(d)) }
+    })
+  const told = new Set<number>()
+  const parts: string[] = []
+  for (const { kind, digits } of seen) {
+    const fresh = [...new Set(digits)].filter((d) => !told.has(d)).sort((a, b) => a - b)
+    fresh.forEach((d) => told.add(d))
+    if (fresh.length > 0) parts.push(`${fresh.length === 1 ? aDigit(fresh[0]) : andList(fresh)} in its ${kind}`)
+  }
+  return parts.length > 0 ? `${bound}, with ${andList(parts)} already` : bound
 }
 
 const ORDINALS = ['first', 'second', 'third', 'fourth', 'fifth', 'sixth', 'seventh', 'eighth', 'ninth']
 
 /** A cell on a thermometer: by position in words ("the bulb", "the third cell"), by name in coordinates. */
 function thermoCell(cell: Cell, thermometer: number, n: Namer): string {
-  if (n.style === 'coords') return cellWords(cell, n)
   const path = n.thermometers[thermometer] ?? []
   const i = path.indexOf(cell)
+  if (n.style === 'coords') return i === path.length - 1 && i > 0 ? `the tip, ${cellWords(cell, n)},` : cellWords(cell, n)
   if (i < 0) return theCell(cell, n)
   if (i === 0) return 'the bulb'
   if (i === path.length - 1) return 'the tip'
   return `the ${ORDINALS[i]} cell`
 }
 
+/**
+ * Every changed cell with its new range, the tip included ("r5c8 has to be 8 and the tip, r6c9,
+ * is 9"): two options are said as "5 or 6", never as a range, and nothing is left as "and so on".
+ */
 function rangesWords(f: FactsOf<'thermo-bounds'>, n: Namer): string {
-  const shown = f.ranges.slice(0, 3).map((r) => {
+  const shown = f.ranges.map((r, i) => {
     const where = thermoCell(r.cell, f.thermometer, n)
-    return r.min === r.max ? `${where} has to be ${r.min}` : `${where} is now ${r.min} to ${r.max}`
+    return r.min === r.max ? `${where} has to be ${r.min}` : `${where} ${i === 0 ? 'is now ' : 'is '}${rangeWords(r.min, r.max)}`
   })
-  if (f.ranges.length > 3) shown.push('so on along the thermometer')
   return shown.length > 0 ? andList(shown) : 'the range tightens'
 }
 
-function chainLinkWords(link: ChainLink, f: FactsOf<'contradiction'>, i: number, n: Namer): string {
+/** "5 or 6" when two digits remain, "4 to 7" for more. */
+function rangeWords(min: number, max: number): string {
+  return max === min + 1 ? `${min} or ${max}` : `${min} to ${max}`
+}
+
+/** An assumption and the moves that follow from it: a what-if, or one side of an either-way step. */
+type Assumed = Pick<FactsOf<'contradiction'>, 'cell' | 'assumed' | 'chain'>
+
+function chainLinkWords(link: ChainLink, f: Assumed, i: number, n: Namer): string {
   const b = link.because
   // pushed by a digit the what-if placed: the assumption itself or an earlier link
   const byPlacement =
@@ -550,17 +673,13 @@ function chainLinkWords(link: ChainLink, f: FactsOf<'contradiction'>, i: number,
 }
 
 /**
- * The forced consequences: a short what-if (six links at most) is said in full; a long one reads
- * its first three links and counts the rest, since a viewer follows a short story, not a list.
+ * The forced consequences, every link in order with what pushed it: a viewer watching the grid
+ * sees each move, so none is skipped or counted away ("a few steps later").
  */
 function chainWords(f: FactsOf<'contradiction'>, n: Namer, connectives: [string, string, string]): string {
-  const links = f.long ? f.chain.slice(0, 3) : f.chain
   const more = ['After that,', 'Then', 'Next,'].filter((c) => c !== connectives[2])
-  const sentences = links.map((l, i) => `${i < 3 ? connectives[i] : more[(i - 3) % more.length]} ${chainLinkWords(l, f, i, n)}.`)
-  // the links not read aloud, counted truly
-  const rest = f.chain.length - links.length
-  if (rest > 0) sentences.push(rest === 1 ? 'One step later,' : rest === 2 ? 'A couple of steps later,' : f.long ? 'Several steps later,' : 'A few steps later,')
-  else sentences.push(links.length === 0 ? 'Then' : 'And')
+  const sentences = f.chain.map((l, i) => `${i < 3 ? connectives[i] : more[(i - 3) % more.length]} ${chainLinkWords(l, f, i, n)}.`)
+  sentences.push(f.chain.length === 0 ? 'Then' : 'And')
   return sentences.join(' ')
 }
 
@@ -570,9 +689,15 @@ function breakWords(f: FactsOf<'contradiction'>, n: Namer): string {
   return 'the grid would break'
 }
 
+/**
+ * Every placement of a run with its cell: "5 in column 2, 2 in column 7" along a named row or
+ * column, "r2c2 is 5, r3c2 is 2" in coordinates, full cell names elsewhere.
+ */
 function runList(r: Run): string {
-  if (r.n.style === 'coords') return andList(r.placements.map((p) => `${p.digit} in ${cellWords(p.cell, r.n)}`))
-  return andList(r.placements.map((p) => p.digit))
+  if (r.n.style === 'coords') return andList(r.placements.map((p) => `${cellWords(p.cell, r.n)} is ${p.digit}`))
+  const line = r.line
+  if (line) return andList(r.placements.map((p) => `${p.digit} in ${line === 'row' ? 'column' : 'row'} ${(line === 'row' ? colOf(p.cell) : rowOf(p.cell)) + 1}`))
+  return r.placements.map((p, i) => `${i > 0 && i === r.placements.length - 1 ? 'and ' : ''}${aDigit(p.digit)} at ${cellWords(p.cell, r.n)}`).join('; ')
 }
 
 function pointingHomes(f: FactsOf<'thermo-pointing'>): Cell[] {
@@ -680,8 +805,12 @@ function endsFill(f: FactsOf<'thermo-ends'>): string {
   return `the ${countWords(gap)} cells ${side} it have to be ${andList(run)}, right ${f.end === 'tip' ? 'up to the tip' : 'down to the bulb'}`
 }
 
-/** Two or more cells as alternatives: "row 4, column 7 or 8" in words when they share a line, "r4c7 or r4c8". */
-function cellsOr(cells: Cell[], n: Namer): string {
+/** Two or more cells as alternatives: "row 4, column 7 or 8" in words when they share a line, "r4c7 or r4c8"; "column 7 or 8" inside a row just named. */
+function cellsOr(cells: Cell[], n: Namer, within?: HouseRef): string {
+  // inside a row or column just named, the other coordinate alone: "column 5 or 6"
+  if (n.style === 'words' && within && within.kind !== 'box' && cells.length > 1) {
+    return within.kind === 'row' ? `column ${orList(cells.map((c) => (c % 9) + 1))}` : `row ${orList(cells.map((c) => Math.floor(c / 9) + 1))}`
+  }
   if (n.style === 'words' && cells.length > 1) {
     const rows = new Set(cells.map((c) => Math.floor(c / 9)))
     const cols = new Set(cells.map((c) => c % 9))

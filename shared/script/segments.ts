@@ -3,9 +3,9 @@
  * clean-up. Worked out on steps (not lines) so that folding, chapters and the spoken lead-ins
  * at chapter starts all agree.
  */
-import type { Step } from '../engine/types'
+import type { Cell, Step } from '../engine/types'
 import { boxOf } from '../grid'
-import { boxWords, capitalise } from './words'
+import { boxWords, capitalise, thermoWords } from './words'
 
 export interface Segment {
   /** index of the step the segment starts at */
@@ -30,7 +30,12 @@ export function stepBox(step: Step): number {
   return boxOf(cell)
 }
 
-export function segmentSteps(steps: Step[]): Segment[] {
+/**
+ * The solve's segments. "Finding the break-in" ends at the break-in; each later segment is titled by
+ * what happens in it: the thermometer most of its steps work on ("The long thermometer"), else
+ * the box it settles in. Two segments in a row about the same place are one.
+ */
+export function segmentSteps(steps: Step[], thermometers: Cell[][] = []): Segment[] {
   const first = steps.findIndex((s) => s.placements.length > 0)
   const segments: Segment[] = [{ start: 0, title: first === 0 ? 'The break-in' : 'Finding the break-in' }]
   if (first < 0) return segments
@@ -46,7 +51,8 @@ export function segmentSteps(steps: Step[]): Segment[] {
   const middle = first + 1
   const minSteps = Math.max(MIN_AREA_STEPS, Math.ceil((middleEnd - middle) / MAX_AREA_CHAPTERS))
   // The break-in chapter runs on until the solve first moves elsewhere: a chapter of one line helps nobody.
-  const starts: number[] = []
+  // after a search for the break-in, the story moves on at the step after it
+  const starts: number[] = first > 0 && middle < middleEnd ? [middle] : []
   let s = 0
   for (let i = middle + 1; i < middleEnd; i++) {
     const here = stepBox(steps[i])
@@ -57,21 +63,39 @@ export function segmentSteps(steps: Step[]): Segment[] {
       s = i
     }
   }
-  const visited = new Set<number>()
+  const visited = new Set<string>()
+  let previous: string | undefined
   starts.forEach((start, k) => {
     const end = starts[k + 1] ?? middleEnd
     const box = dominantBox(steps, start, end)
-    const name = boxWords(box, { style: 'words', thermometers: [] })
-    const again = visited.has(box)
-    visited.add(box)
+    const thermo = dominantThermometer(steps, start, end)
+    const name = thermo !== undefined ? thermoWords(thermo, { style: 'words', thermometers }) : boxWords(box, { style: 'words', thermometers: [] })
+    // the same place twice in a row is one chapter, never "The central box" then "Back to the central box"
+    if (name === previous) return
+    previous = name
+    const again = visited.has(name)
+    visited.add(name)
     const title = again ? `Back to ${name}` : capitalise(name)
     // Only announce the move when the first step really is in that box; otherwise it would mislead.
-    const leads = again ? [`Back to ${name}.`, `Now back to ${name}.`] : [`Let's head over to ${name}.`, `Over to ${name} now.`, `Now for ${name}.`]
-    const lead = stepBox(steps[start]) === box ? leads[k % leads.length] : undefined
+    // openers the phrasings don't use, so a lead-in never echoes a line just before it
+    const leads = again ? [`Back to ${name}.`, `Returning to ${name}.`] : [`Heading over to ${name}.`, `Over to ${name} now.`, `Onward to ${name}.`]
+    const lead = thermo === undefined && stepBox(steps[start]) === box ? leads[k % leads.length] : undefined
     segments.push({ start, title, lead })
   })
-  if (hasCleanup) segments.push({ start: cleanup, title: 'Filling in the rest', lead: "From here it's mostly filling in." })
+  if (hasCleanup) segments.push({ start: cleanup, title: 'Filling in the rest', lead: 'Mostly filling in from here.' })
   return segments
+}
+
+/** The thermometer at least half of the steps work on (by their facts or reason), if there is one. */
+function dominantThermometer(steps: Step[], from: number, to: number): number | undefined {
+  const counts = new Map<number, number>()
+  for (let i = from; i < to; i++) {
+    const f = steps[i].facts
+    const t = 'thermometer' in f && typeof f.thermometer === 'number' ? f.thermometer : steps[i].reason.thermometers[0]
+    if (t !== undefined) counts.set(t, (counts.get(t) ?? 0) + 1)
+  }
+  const [best] = [...counts.entries()].sort((a, b) => b[1] - a[1] || a[0] - b[0])
+  return best && best[1] * 2 >= to - from ? best[0] : undefined
 }
 
 function dominantBox(steps: Step[], from: number, to: number): number {

@@ -44,6 +44,19 @@ export function lineActions(outline: Pick<Outline, 'steps'>, line: Pick<OutlineL
     placements += step.placements.length
     marks += step.marks.filter((c) => !before.has(c)).length
     marks += step.eliminations.filter((e) => e.digits.length > 0).length
+    const f = step.facts
+    // A what-if is played out on the grid: the assumed digit and every link's move, then undone.
+    if (f.kind === 'contradiction') {
+      placements += 1 + f.chain.filter((l) => l.kind === 'place').length
+      marks += f.chain.filter((l) => l.kind === 'eliminate').length
+    }
+    // An either-way step plays out each side the same way, one after the other.
+    if (f.kind === 'either-way') {
+      for (const side of f.sides) {
+        placements += 1 + side.chain.filter((l) => l.kind === 'place').length
+        marks += side.chain.filter((l) => l.kind === 'eliminate').length
+      }
+    }
   }
   return { placements, marks }
 }

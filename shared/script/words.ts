@@ -39,20 +39,68 @@ export function houseWords(h: HouseRef, n: Namer): string {
   return h.kind === 'box' ? boxWords(h.index, n) : `${h.kind} ${h.index + 1}`
 }
 
-/** "this row", "this column", "this box". */
-export function thisHouse(h: HouseRef): string {
-  return `this ${h.kind}`
-}
-
-/** "the thermometer in the central box"; spelled from its bulb when two bulbs share a box. */
+/**
+ * A thermometer named by where it lies, so a viewer finds it at once: in coordinates by its bulb
+ * ("the r4c2 thermometer"); in words, the first of these that no other thermometer shares: "the
+ * thermometer" when it is the only one, "the long thermometer" for the one clearly longest (six
+ * cells or more), the box holding most of its cells ("the thermometer in the central box"), the
+ * row or column it runs along, and else its bulb ("the thermometer starting at row 3, column 4").
+ * Never the box of the bulb alone, which misleads when most of it lies elsewhere.
+ */
 export function thermoWords(index: number, n: Namer): string {
   const path = n.thermometers[index]
   if (!path) return 'the thermometer'
-  const bulb = path[0]
-  const sameBox = n.thermometers.filter((p) => boxOf(p[0]) === boxOf(bulb)).length
-  if (n.style === 'coords') return `the ${cellWords(bulb, n)} thermometer`
-  if (sameBox > 1) return `the thermometer starting at ${cellWords(bulb, n)}`
-  return `the thermometer in ${boxWords(boxOf(bulb), n)}`
+  if (n.style === 'coords') return `the ${cellWords(path[0], n)} thermometer`
+  return thermoNames(n.thermometers)[index]
+}
+
+const NAMES_MEMO = new WeakMap<Cell[][], string[]>()
+
+function thermoNames(thermometers: Cell[][]): string[] {
+  const memo = NAMES_MEMO.get(thermometers)
+  if (memo) return memo
+  const words: Namer = { style: 'words', thermometers }
+  // each rule gives a name or null; a name is kept only when no other thermometer gets it
+  const rules: ((path: Cell[]) => string | null)[] = [
+    () => (thermometers.length === 1 ? 'the thermometer' : null),
+    (path) => {
+      const longest = Math.max(...thermometers.map((p) => p.length))
+      return path.length >= 6 && path.length === longest ? 'the long thermometer' : null
+    },
+    (path) => {
+      const counts = new Array<number>(9).fill(0)
+      for (const c of path) counts[boxOf(c)]++
+      const most = Math.max(...counts)
+      return most * 2 > path.length ? `the thermometer in ${boxWords(counts.indexOf(most), words)}` : null
+    },
+    (path) => {
+      if (path.every((c) => rowOf(c) === rowOf(path[0]))) return `the thermometer along row ${rowOf(path[0]) + 1}`
+      if (path.every((c) => colOf(c) === colOf(path[0]))) return `the thermometer down column ${colOf(path[0]) + 1}`
+      return null
+    },
+  ]
+  const names = thermometers.map((path) => {
+    for (const rule of rules) {
+      const name = rule(path)
+      if (name && thermometers.filter((other) => rule(other) === name).length === 1) return name
+    }
+    return `the thermometer starting at ${cellWords(path[0], words)}`
+  })
+  NAMES_MEMO.set(thermometers, names)
+  return names
+}
+
+/**
+ * Cells inside a house that was just named, without naming it again: "columns 1, 7 and 8" after
+ * "row 4" (never "row 4, row 4, columns 1, 7 and 8"); full names in a box or in coordinates.
+ */
+export function cellsInHouse(cells: Cell[], house: HouseRef, n: Namer): string {
+  if (n.style === 'words' && house.kind !== 'box' && cells.length > 0) {
+    const kind = house.kind === 'row' ? 'column' : 'row'
+    const of = house.kind === 'row' ? colOf : rowOf
+    return `${kind}${cells.length > 1 ? 's' : ''} ${andList(cells.map((c) => of(c) + 1))}`
+  }
+  return cellsWords(cells, n)
 }
 
 /** "6, 7, 8 and 9" */

@@ -48,6 +48,8 @@ const AREAS: FactsTable<NudgeArea, [bulbs: readonly number[]]> = {
   fish: (f) => linesArea(f.baseLines),
   wing: (f) => boxArea(boxOf(f.pivot)),
   'w-wing': (f) => houseArea(f.link.house),
+  // the choice: the house holding the digit's places, or the box of the two-way cell
+  'either-way': (f) => (f.house ? houseArea(f.house) : boxArea(boxOf(f.sides[0].cell))),
   contradiction: (f) => boxArea(boxOf(f.cell)),
 }
 

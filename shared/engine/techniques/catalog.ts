@@ -30,5 +30,6 @@ export const TECHNIQUES: Readonly<Record<TechniqueId, TechniqueInfo>> = Object.f
   'swordfish': { plainName: 'Three lines lock a digit into three crossing lines', tradeTerm: 'swordfish', difficulty: 6.5 },
   'xyz-wing': { plainName: 'A three-way cell and two partners share a digit', tradeTerm: 'XYZ-wing', difficulty: 7 },
   'w-wing': { plainName: "Two matching pairs joined by a digit's two places", tradeTerm: 'W-wing', difficulty: 7.5 },
+  'either-way': { plainName: 'Either choice of a two-way cell or a two-place digit leads to the same result', tradeTerm: 'forcing chain', difficulty: 7.75 },
   'contradiction': { plainName: 'What-if that runs into a dead end', tradeTerm: 'contradiction', difficulty: 8 },
 })

@@ -3,6 +3,7 @@ import type { TechniqueId } from '../types'
 import { TECHNIQUES } from './catalog'
 import { contradiction } from './contradiction'
 import type { Technique } from './deduction'
+import { eitherWay } from './either-way'
 import { fish } from './fish'
 import { hiddenSingle } from './hidden-single'
 import { hiddenSubset } from './hidden-subset'
@@ -39,6 +40,7 @@ const MODULES: Readonly<Record<TechniqueId, Technique>> = {
   swordfish: fish(3),
   'xyz-wing': xyzWing,
   'w-wing': wWing,
+  'either-way': eitherWay,
   contradiction,
 }
 

@@ -2,8 +2,7 @@
 // solution the SAT solver logic-solver (npm, tests/helpers/sat-oracle.ts) finds; before any step it is the givens.
 import { describe, expect, test } from 'vitest'
 import { boardAt } from '../../../shared/picture/board-at'
-import classicPuzzles from '../../fixtures/classic-puzzles.json'
-import thermoPuzzles from '../../fixtures/thermo-puzzles.json'
+import thermoTiers from '../../fixtures/thermo-tiers.json'
 import { oracleSolve } from '../../helpers/sat-oracle'
 import { outlineFor } from '../../helpers/studio-outline'
 
@@ -49,9 +48,9 @@ describe('boardAt', () => {
   })
 
   test('boardAt(outline, k) on a contradiction step => the chain from the assumed cell, in order', () => {
-    // the first fixture whose path still needs a what-if (the engine learns techniques that make them rarer)
-    const outline = [...classicPuzzles.puzzles, ...thermoPuzzles.puzzles]
-      .filter((p) => /^(PE|GT)/.test(p.id))
+    // the first hard puzzle of the tier set whose path still needs a what-if (the engine learns
+    // techniques that make them rarer: our other fixtures need none any more)
+    const outline = thermoTiers.tiers.hard
       .map((p) => outlineFor(p.id))
       .find((o) => o.steps.some((s) => s.facts.kind === 'contradiction'))
     if (!outline) throw new Error('no fixture path has a contradiction step any more')

@@ -1,5 +1,6 @@
 import { describe, expect, test } from 'vitest'
 import { buildOutline } from '../../../shared/script/index'
+import { aDigit } from '../../../shared/script/words'
 import { THERMO_A, contradiction, hiddenSingle, nakedSingle, puzzle, rc, result, sol, thermoLength } from './steps'
 
 describe('buildOutline folding', () => {
@@ -9,16 +10,17 @@ describe('buildOutline folding', () => {
     const o = buildOutline(puzzle(), result(steps))
     const lines = o.lines.filter((l) => l.kind === 'step')
     expect(lines.map((l) => l.steps)).toEqual([[0], [1, 2, 3]])
-    expect(lines[1].text).toMatch(/(finishes|completes|is done now).*the thermometer in the top-left box.*3, 6 and 8\.$/i)
+    // every digit with its cell (issue #13): a run never lists bare digits
+    expect(lines[1].text).toMatch(/(finishes|completes|is done now).*the thermometer in the top-left box.*a 3 at row 1, column 1; a 6 at row 1, column 2; and an 8 at row 1, column 3\.$/i)
     const coords = buildOutline(puzzle(), result(steps), { names: 'coords' })
-    expect(coords.lines[2].text).toContain('3 in r1c1, 6 in r1c2 and 8 in r1c3')
+    expect(coords.lines[2].text).toContain('r1c1 is 3, r1c2 is 6 and r1c3 is 8')
   })
 
   test('a run in one box that leaves it unfinished is folded without claiming to finish it', () => {
     const steps = [hiddenSingle(rc(9, 9)), hiddenSingle(rc(4, 4)), nakedSingle(rc(5, 5)), hiddenSingle(rc(6, 6))]
     const o = buildOutline(puzzle(), result(steps))
     const run = o.lines.find((l) => l.steps.length === 3)!
-    expect(run.text).toContain(`${sol(rc(4, 4))}, ${sol(rc(5, 5))} and ${sol(rc(6, 6))}`)
+    expect(run.text).toContain(`${sol(rc(4, 4))} at row 4, column 4; ${aDigit(sol(rc(5, 5)))} at row 5, column 5; and ${aDigit(sol(rc(6, 6)))} at row 6, column 6`)
     expect(run.text).not.toMatch(/finish|complete|done/)
   })
 
