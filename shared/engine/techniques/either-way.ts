@@ -108,7 +108,7 @@ function choices(board: Board): Choice[] {
     if (board.digits[c] || POPCOUNT[m] > MAX_SIDES) continue
     out.push({ sides: digitsOf(m).map((digit) => ({ cell: c, digit })), house: -1 })
   }
-  const seen = new Set<string>()
+  const seen = new Set<number>()
   for (let h = 0; h < 27; h++) {
     const cells = HOUSES[h]
     for (let d = 1; d <= 9; d++) {
@@ -121,7 +121,8 @@ function choices(board: Board): Choice[] {
         else if (!board.digits[c] && board.cand[c] & bit) places.push(c)
       }
       if (placed || places.length < 2 || places.length > MAX_SIDES) continue
-      const key = `${d}:${places.join(',')}`
+      // the places in cell order, and the digit: one number for the same places seen from a line and a box
+      const key = ((d * 81 + places[0]) * 81 + places[1]) * 82 + (places[2] ?? 81)
       if (seen.has(key)) continue
       seen.add(key)
       out.push({ sides: places.map((cell) => ({ cell, digit: d })), house: h })

@@ -343,21 +343,23 @@ export class Trial {
     const cap = this.shortCap
     const base = id * MAX_SHORT
     let n = 0
-    let over = false
-    const add = (m: number) => {
-      if (m <= 0 || over) return
-      for (let k = 0; k < n; k++) if (shortMoves[base + k] === m) return
-      if (n === cap) over = true
-      else shortMoves[base + n++] = m
-    }
-    add(id)
-    for (let i = this.moveDeps[id]; i < this.moveDeps[id + 1] && !over; i++) {
+    // the move itself, then each dependency and what it needs, without repeats, until past the cap
+    if (id > 0) shortMoves[base + n++] = id
+    for (let i = this.moveDeps[id]; i < this.moveDeps[id + 1] && n <= cap; i++) {
       const dep = deps[i]
-      if (shortCount[dep] > cap) over = true
-      add(dep)
-      for (let k = 0; k < shortCount[dep] && !over; k++) add(shortMoves[dep * MAX_SHORT + k])
+      const count = shortCount[dep]
+      if (count > cap) n = cap + 1
+      for (let k = -1; k < count && n <= cap; k++) {
+        const m = k < 0 ? dep : shortMoves[dep * MAX_SHORT + k]
+        if (m <= 0) continue
+        let seen = false
+        for (let j = 0; j < n && !seen; j++) seen = shortMoves[base + j] === m
+        if (seen) continue
+        if (n === cap) n = cap + 1
+        else shortMoves[base + n++] = m
+      }
     }
-    shortCount[id] = over ? cap + 1 : n
+    shortCount[id] = n
   }
 
   private die(kind: 1 | 2, cell: Cell, house: number, digit: number): void {
