@@ -18,7 +18,8 @@ const config: KnipConfig = {
   ],
   project: ['**/*.{ts,vue,js,mjs}'],
   // knex loads the driver named by `client: 'pg'` in knexfile.ts with a require of its own
-  ignoreDependencies: ['pg'],
+  // and PrimeVue's Chart component imports chart.js itself, at run time
+  ignoreDependencies: ['pg', 'chart.js'],
   // Debian's media and speech tools, installed by scripts/lib/setup.sh (ensure_media_tools), not by npm
   ignoreBinaries: ['ffmpeg', 'espeak-ng', 'sox'],
   // knip's default issue types plus import cycles, which it leaves out by default: a cycle is a

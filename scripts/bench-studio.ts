@@ -59,6 +59,8 @@ function makeRecord(): OutlineRecord {
     stepCount: outline.steps.length,
     totalMs: timeline(outline).totalMs,
     version: 1,
+    puzzleVersion: 1,
+    savedBy: null,
     updatedAt: new Date().toISOString(),
     outline,
   }

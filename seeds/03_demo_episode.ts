@@ -64,10 +64,11 @@ export async function seed(knex: Knex, storage?: Storage): Promise<void> {
         const recordingId = await insertRecording(trx, { ...voice.row, outline_id: take.id, uploaded_by: editor.id })
         await savePeaks(trx, recordingId, voice.row.storage_key, voice.peaks)
         published = alignedTo(outline, voice.starts)
-        await saveOutline(trx, channel.id, take.id, { version: take.version, script: scriptOf(published) })
+        await saveOutline(trx, channel.id, take.id, { version: take.version, script: scriptOf(published) }, user)
         video = { kind: 'recording', recordingId }
       }
-      await publishEpisode(trx, channel.id, take.id, { ...DEMO_EPISODE, visibility: 'public', description: toDescription(published), video }, user)
+      // demo data is no news: nobody is notified (a mail would also start the local mail catcher in the seeding process)
+      await publishEpisode(trx, channel.id, take.id, { ...DEMO_EPISODE, visibility: 'public', description: toDescription(published), video }, user, { announce: false })
     })
   } catch (error) {
     await voice?.discard()

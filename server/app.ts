@@ -14,15 +14,21 @@ import type { Db } from './db/knex'
 import { createLogger, type AppLogger } from './logger'
 import { errorHandler, unknownRoute } from './middleware/error-handler'
 import { authEndpoints } from './routes/auth'
+import { accountEndpoints } from './routes/account'
+import { devMailEndpoints } from './routes/dev-mail'
+import { invitationEndpoints } from './routes/invitations'
+import { memberEndpoints } from './routes/members'
 import { channelEndpoints } from './routes/channels'
 import { episodeEndpoints } from './routes/episodes'
 import { endpointTable } from './routes/endpoint'
 import { healthEndpoints } from './routes/health'
 import { alignmentEndpoints } from './routes/alignments'
 import { outlineEndpoints } from './routes/outlines'
+import { pipelineEndpoints } from './routes/pipeline'
 import { pictureEndpoints } from './routes/pictures'
 import { puzzleEndpoints } from './routes/puzzles'
 import { recordingEndpoints } from './routes/recordings'
+import { rehearsalEndpoints } from './routes/rehearsals'
 import { createStorage, type Storage } from './storage'
 import { createEnginePool, type EnginePool } from './workers/engine-pool'
 import { createJobQueue, type AlignmentQueue } from './jobs/queue'
@@ -73,14 +79,21 @@ export function createApp({ db, config, logger, engine, jobs, storage = createSt
   const api = endpointTable(app, '/api', { db, passport })
   authEndpoints(api, db, config)
   channelEndpoints(api, db)
+  memberEndpoints(api, db, config)
+  invitationEndpoints(api, db, config)
+  accountEndpoints(api, { db, config, logger })
   puzzleEndpoints(api, db, engine)
   outlineEndpoints(api, db, engine)
   healthEndpoints(api, db)
   recordingEndpoints(api, { db, storage, logger, mediaTokens: mediaTokens(config.auth.jwtSecret) }, config)
   alignmentEndpoints(api, db, jobs)
+  rehearsalEndpoints(api, db)
   pictureEndpoints(api, db, engine)
+  pipelineEndpoints(api, db)
   // also the episode page's HTML route, outside /api: registered here, before the client's fallback below
   episodeEndpoints(api, { db, storage, logger, grants: episodeGrants(config.auth.jwtSecret), exports: engine, clientDir })
+  // the local mail catcher's page, outside /api (also before the client's fallback); never in production
+  if (config.mail.caughtMailPage) devMailEndpoints(api)
   app.use('/api', unknownRoute)
 
   if (existsSync(clientDir)) {

@@ -42,6 +42,11 @@ const envSchema = z.object({
   JOB_WORKERS: z.coerce.number().int().min(1).max(16).default(1),
   // false when separate `npm run worker` processes work the jobs and this server only queues them
   JOBS_IN_SERVER: z.stringbool().default(true),
+  // outgoing mail (invitations, password resets): any SMTP server; absent outside production, a local catcher takes the mail
+  SMTP_URL: z.string().regex(/^smtps?:\/\//, { message: 'SMTP_URL must start with smtp:// or smtps://' }).optional(),
+  MAIL_FROM: z.string().min(3).default('Gridcue <no-reply@gridcue.localhost>'),
+  // the address people open Gridcue at, for links in mails (never taken from a request's Host header, which anyone can forge)
+  PUBLIC_URL: z.url({ message: 'PUBLIC_URL must be an address such as https://gridcue.example.org' }).optional(),
 }).refine((e) => e.STORAGE !== 's3' || e.S3_BUCKET, { message: 'S3_BUCKET is required when STORAGE=s3', path: ['S3_BUCKET'] })
 
 export type Config = ReturnType<typeof loadConfig>
@@ -70,6 +75,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env) {
     storage: storageOf(e),
     uploads: { maxBytes: e.UPLOAD_MAX_BYTES },
     jobs: { workers: e.JOB_WORKERS, inServer: e.JOBS_IN_SERVER },
+    mail: mailOf(e),
   })
 }
 
@@ -78,6 +84,29 @@ function storageOf(e: z.output<typeof envSchema>) {
   if (e.STORAGE === 'disk') return { driver: 'disk' as const, dir: e.STORAGE_DIR }
   const credentials = e.S3_ACCESS_KEY_ID && e.S3_SECRET_ACCESS_KEY ? { accessKeyId: e.S3_ACCESS_KEY_ID, secretAccessKey: e.S3_SECRET_ACCESS_KEY } : undefined
   return { driver: 's3' as const, endpoint: e.S3_ENDPOINT, bucket: e.S3_BUCKET ?? '', region: e.S3_REGION, credentials }
+}
+
+/**
+ * Where mail goes and what its links start with. Without SMTP_URL the local catcher (server/mail/catcher.ts)
+ * keeps it, so nothing is lost; its page (/dev/mail) shows reset links to whoever opens it, so never in production.
+ */
+function mailOf(e: Pick<z.output<typeof envSchema>, 'SMTP_URL' | 'MAIL_FROM' | 'PUBLIC_URL' | 'HOST' | 'PORT' | 'NODE_ENV'>) {
+  return {
+    smtpUrl: e.SMTP_URL,
+    from: e.MAIL_FROM,
+    publicUrl: (e.PUBLIC_URL ?? `http://${e.HOST}:${e.PORT}`).replace(/\/+$/, ''),
+    caughtMailPage: !e.SMTP_URL && e.NODE_ENV !== 'production',
+  }
+}
+
+export type MailSettings = ReturnType<typeof mailOf>
+
+/** Only the mail settings, for the mailer every service calls without being handed the whole configuration. */
+export function mailSettings(env: NodeJS.ProcessEnv = process.env): MailSettings {
+  const { SMTP_URL, MAIL_FROM, PUBLIC_URL, HOST, PORT, NODE_ENV } = envSchema.shape
+  const mail = z.object({ SMTP_URL, MAIL_FROM, PUBLIC_URL, HOST, PORT, NODE_ENV }).safeParse(env)
+  if (!mail.success) throw new Error(`Invalid configuration:\n${mail.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`).join('\n')}`)
+  return mailOf(mail.data)
 }
 
 /** Only the database address, for tools (migrations, seeds) that need nothing else. */

@@ -5,6 +5,7 @@ import { demoEpisodePath } from './demo-episode'
 import { startJobs } from './jobs'
 import { wordSources } from './jobs/word-sources'
 import { createLogger } from './logger'
+import { sharedMailCatcher } from './mail/catcher'
 import { resumePlaybackPreparation } from './services/recordings'
 import { createStorage } from './storage'
 import { createEnginePool } from './workers/engine-pool'
@@ -39,6 +40,18 @@ const server = app.listen(config.http.port, config.http.host, (error?: Error) =>
   const address = server.address()
   const port = typeof address === 'object' && address ? address.port : config.http.port
   say(`\n  Gridcue is running at http://${config.http.host}:${port}/\n`)
+  // without SMTP_URL mail is kept by the local catcher on loopback: started now, so a failure shows at once
+  if (!config.mail.smtpUrl) {
+    void sharedMailCatcher().then(
+      (catcher) =>
+        say(
+          config.mail.caughtMailPage
+            ? `  Mail is not sent (no SMTP_URL): read it at http://${config.http.host}:${port}/dev/mail\n`
+            : `  Mail is not sent (no SMTP_URL): the local catcher on port ${catcher.port} keeps it; set SMTP_URL to send it\n`,
+        ),
+      (err: unknown) => logger.error({ err }, 'the local mail catcher could not start'),
+    )
+  }
   // the app starts without its database and recovers when it comes: say so rather than leave it to the first 503
   void databaseAnswers(db, config.db.timeoutMs).then((up) => {
     if (!up) {

@@ -33,10 +33,22 @@ export const PERMISSIONS = {
   'recording.read': studioTeam,
   /** upload recordings and align a take to them */
   'recording.edit': postProduction,
+  /** rehearse a take: timed runs (save, discard) and read-aloud previews */
+  'rehearsal.run': makers,
+  /** see a take's rehearsal runs and the presenter's calibrated timing */
+  'rehearsal.read': studioTeam,
   /** publish and unpublish episodes */
   'episode.publish': postProduction,
   /** read published episodes */
   'episode.read': everyone,
+  /** see the pipeline board and the schedule */
+  'pipeline.read': studioTeam,
+  /** move a take to another stage (STAGE_MOVERS in shared/schemas/pipeline.ts says into which) */
+  'pipeline.move': studioTeam,
+  /** plan a take's publish day and put a person on it */
+  'pipeline.plan': makers,
+  /** read the channel's audit log */
+  'audit.read': ownerOnly,
 } as const satisfies Record<string, readonly Role[]>
 
 export type Action = keyof typeof PERMISSIONS

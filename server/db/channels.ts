@@ -33,3 +33,13 @@ export async function insertChannel(db: Db, channel: Pick<ChannelRow, 'name' | '
 export function findChannelBySlug(db: Db, slug: string): Promise<ChannelRow | undefined> {
   return db('channels').where({ slug }).first()
 }
+
+export async function updateChannel(db: Db, id: number, changes: Pick<ChannelRow, 'name' | 'description'>): Promise<void> {
+  await db('channels').where({ id }).update({ ...changes, updated_at: db.fn.now() })
+}
+
+/** Slugs in use that start with `base`, for choosing a free one. */
+export async function slugsLike(db: Db, base: string): Promise<string[]> {
+  const rows = await db('channels').whereLike('slug', `${base}%`).select('slug')
+  return rows.map((r) => r.slug)
+}

@@ -9,6 +9,8 @@ export type PuzzleFields = Pick<
 
 export interface PuzzleWithCount extends PuzzleRow {
   outline_count: number
+  /** takes solved on an earlier version of the grid */
+  stale_outline_count: number
 }
 
 // jsonb columns take JSON text: pg would send a JS array as a PostgreSQL array
@@ -19,7 +21,11 @@ const toColumns = (db: Db, fields: PuzzleFields) => ({
 })
 
 const withOutlineCount = (db: Db) =>
-  db('puzzles').select('puzzles.*', db.raw('(select count(*)::int from outlines o where o.puzzle_id = puzzles.id) as outline_count'))
+  db('puzzles').select(
+    'puzzles.*',
+    db.raw('(select count(*)::int from outlines o where o.puzzle_id = puzzles.id) as outline_count'),
+    db.raw('(select count(*)::int from outlines o where o.puzzle_id = puzzles.id and o.puzzle_version <> puzzles.version) as stale_outline_count'),
+  )
 
 export function listPuzzles(db: Db, channelId: number): Promise<PuzzleWithCount[]> {
   return withOutlineCount(db).where('puzzles.channel_id', channelId).orderBy('puzzles.updated_at', 'desc').orderBy('puzzles.id', 'desc')
@@ -48,6 +54,14 @@ export async function updatePuzzle(db: Db, channelId: number, puzzleId: number, 
     .update({ ...toColumns(db, fields), version: version + 1, updated_at: db.fn.now() })
     .returning('*')
   return row as PuzzleRow | undefined
+}
+
+/**
+ * After a save that left the grid as it was (a new title, say), the takes that were current stay current:
+ * they move from the old version to the new one. Takes already behind stay behind.
+ */
+export async function keepTakesCurrent(db: Db, puzzleId: number, from: number, to: number): Promise<void> {
+  await db('outlines').where({ puzzle_id: puzzleId, puzzle_version: from }).update({ puzzle_version: to })
 }
 
 /** True when a row was deleted; its outlines go with it. */

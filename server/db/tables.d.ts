@@ -4,6 +4,8 @@ import type { EpisodeVideoChoice, EpisodeVisibility } from '../../shared/schemas
 import type { Outline, OutlineBase, OutlineScript } from '../../shared/schemas/outline'
 import type { AlignmentMethod, AlignmentState, LineProposal, Peaks, RecordingKind, RecordingPlayback } from '../../shared/schemas/recording'
 import type { PuzzleCheck, PuzzleRecord } from '../../shared/schemas/studio'
+import type { AuditKind, NotificationKind, TakeStage } from '../../shared/schemas/pipeline'
+import type { RehearsedLine } from '../../shared/schemas/rehearsal'
 
 export interface UserRow {
   id: number
@@ -21,6 +23,8 @@ export interface ChannelRow {
   name: string
   slug: string
   description: string
+  /** one episode every this many days (the schedule's cadence) */
+  cadence_days: number
   created_at: Date
   updated_at: Date
 }
@@ -65,9 +69,18 @@ export interface OutlineRow {
   /** what people edit (pace, names, target, lines, chapters), in a column of its own so a save writes only this */
   script: OutlineScript
   version: number
+  /** the puzzle's version this take was solved on; behind the puzzle's own version once its grid changed */
+  puzzle_version: number
   created_by: number | null
+  /** who saved the take last (its maker until someone saves) */
+  saved_by: number | null
   created_at: Date
   updated_at: Date
+  /** where the take is in the pipeline (shared/schemas/pipeline.ts) */
+  stage: TakeStage
+  /** the planned publish day; a date column (server/db/pipeline.ts reads it as 'YYYY-MM-DD' text) */
+  planned_on: string | null
+  assignee_id: number | null
 }
 
 export interface RecordingRow {
@@ -138,6 +151,80 @@ export interface EpisodeRow {
   unpublished_at: Date | null
 }
 
+export interface RehearsalRow {
+  id: number
+  outline_id: number
+  /** null once the person has left */
+  presenter_id: number | null
+  name: string
+  lines: RehearsedLine[]
+  /** the run without its breaks */
+  speech_ms: number
+  created_at: Date
+}
+
+export interface AuditEventRow {
+  /** a bigint: pg hands it over as a string */
+  id: string
+  channel_id: number
+  actor_id: number | null
+  actor_name: string | null
+  kind: AuditKind
+  subject: string
+  details: Record<string, unknown>
+  created_at: Date
+}
+
+export interface NotificationRow {
+  /** a bigint: pg hands it over as a string */
+  id: string
+  user_id: number
+  channel_id: number
+  kind: NotificationKind
+  text: string
+  link: string
+  created_at: Date
+  read_at: Date | null
+}
+
+interface NotificationChoiceRow {
+  user_id: number
+  kind: NotificationKind
+  in_app: boolean
+  email: boolean
+}
+
+export interface InvitationRow {
+  id: number
+  channel_id: number
+  email: string
+  role: Role
+  /** SHA-256 of the link's token, hex (server/auth/link-tokens.ts) */
+  token_hash: string
+  invited_by: number | null
+  expires_at: Date
+  accepted_at: Date | null
+  accepted_by: number | null
+  created_at: Date
+}
+
+export interface PasswordResetRow {
+  id: number
+  user_id: number
+  token_hash: string
+  expires_at: Date
+  used_at: Date | null
+  created_at: Date
+}
+
+export interface EmailChangeRow {
+  user_id: number
+  new_email: string
+  token_hash: string
+  expires_at: Date
+  created_at: Date
+}
+
 declare module 'knex/types/tables' {
   interface Tables {
     users: UserRow
@@ -148,5 +235,12 @@ declare module 'knex/types/tables' {
     recordings: RecordingRow
     alignment_runs: AlignmentRunRow
     episodes: EpisodeRow
+    invitations: InvitationRow
+    password_resets: PasswordResetRow
+    email_changes: EmailChangeRow
+    audit_events: AuditEventRow
+    notifications: NotificationRow
+    notification_choices: NotificationChoiceRow
+    rehearsals: RehearsalRow
   }
 }

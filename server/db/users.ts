@@ -18,3 +18,13 @@ export async function insertUser(db: Db, user: Pick<UserRow, 'email' | 'name' | 
   const [row] = await db('users').insert(user).returning('*')
   return row as UserRow
 }
+
+/** Changes a person's own details; a new password hash goes with a new token version (every older session ends). */
+export async function updateUser(db: Db, id: number, changes: Partial<Pick<UserRow, 'name' | 'email' | 'password_hash'>>): Promise<UserRow> {
+  const bump = changes.password_hash ? { token_version: db.raw('token_version + 1') } : {}
+  const [row] = await db('users')
+    .where({ id })
+    .update({ ...changes, ...bump, updated_at: db.fn.now() })
+    .returning('*')
+  return row as UserRow
+}

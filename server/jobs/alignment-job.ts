@@ -6,6 +6,7 @@ import type { Db } from '../db/knex'
 import type { AlignmentRunRow } from '../db/tables'
 import type { AppLogger } from '../logger'
 import type { AlignmentQueue, JobAttempt } from './queue'
+import { takeAlignedByRun } from '../services/pipeline'
 import { watchRun } from './run-watch'
 
 /** Where a run's timed words come from, one source per method. */
@@ -67,7 +68,10 @@ export async function alignmentJob(deps: AlignmentJobDeps, attempt: JobAttempt, 
     throw error
   }
   await watch.stop()
-  if (result) await finishRun(db, run.id, result)
+  if (!result) return
+  await finishRun(db, run.id, result)
+  // the proposals are kept whatever happens to the take's stage: a failed move is only logged
+  await takeAlignedByRun(db, run.id).catch((error: unknown) => logger.warn({ err: error, runId: run.id }, 'the take could not be marked aligned'))
 }
 
 /** The run's proposals; undefined when the run went away with its recording. */

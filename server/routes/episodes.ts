@@ -15,7 +15,7 @@ export function episodeEndpoints(api: EndpointTable, deps: EpisodeDeps & { clien
   api.add({ method: 'put', path: take, access: 'episode.publish', body: episodePublishSchema }, ({ params, body, user }) =>
     publishEpisode(db, params.channelId, params.outlineId, body, user),
   )
-  api.add({ method: 'delete', path: take, access: 'episode.publish' }, ({ params }) => unpublishTake(db, params.channelId, params.outlineId))
+  api.add({ method: 'delete', path: take, access: 'episode.publish' }, ({ params, user }) => unpublishTake(db, params.channelId, params.outlineId, user))
 
   // public: a members-only episode answers a signed-in member, or a media element holding the grant the page API gave
   api.addPublic({ method: 'get', path: address, optionalUser: true }, ({ params, user }) => episodePageOf(deps, params.channelSlug, params.episodeSlug, { user }))

@@ -15,6 +15,7 @@ import { checkPictureStep } from '../pictures/grid-picture'
 import type { Exports } from '../workers/export-pool'
 import { recordingFileOf, type RecordingDeps } from './recordings'
 import { episodePageData } from './episode-page-data'
+import { takePublished, takeUnpublished } from './pipeline'
 
 export interface EpisodeDeps extends RecordingDeps {
   grants: EpisodeGrants
@@ -43,7 +44,7 @@ export async function takeEpisodeOf(db: Db, channelId: number, outlineId: number
  * Publishes the take as it is now, or publishes it again: the page shows this snapshot of the script and the
  * puzzle's credits until the next time. A publish date in the past, or none, means now.
  */
-export async function publishEpisode(db: Db, channelId: number, outlineId: number, input: EpisodePublish, user: Express.User): Promise<Episode> {
+export async function publishEpisode(db: Db, channelId: number, outlineId: number, input: EpisodePublish, user: Express.User, { announce = true }: { announce?: boolean } = {}): Promise<Episode> {
   const take = await findOutline(db, channelId, outlineId)
   if (!take) throw notFound('Outline')
   const puzzle = (await findPuzzle(db, channelId, take.puzzle_id))!
@@ -73,13 +74,15 @@ export async function publishEpisode(db: Db, channelId: number, outlineId: numbe
     if ((error as { constraint?: string }).constraint === SLUG_INDEX) throw slugTaken(input.slug)
     throw error
   }
+  await takePublished(db, channelId, outlineId, user, { slug: input.slug, publishAt: asked > now ? asked : now, announce })
   return takeEpisodeOf(db, channelId, outlineId)
 }
 
 /** Takes the take's episode down: its page answers 404, its settings stay for publishing again. */
-export async function unpublishTake(db: Db, channelId: number, outlineId: number): Promise<Episode> {
+export async function unpublishTake(db: Db, channelId: number, outlineId: number, user?: Express.User): Promise<Episode> {
   const episode = await takeEpisodeOf(db, channelId, outlineId)
   await unpublishEpisode(db, episode.id)
+  await takeUnpublished(db, channelId, outlineId, user)
   return takeEpisodeOf(db, channelId, outlineId)
 }
 

@@ -14,6 +14,7 @@ import { MediaToolError } from '../media/run-tool'
 import type { ByteRange, Storage } from '../storage'
 import type { StoredUpload } from '../uploads/receiver'
 import { playbackOnUpload, preparePlayback } from './playback'
+import { takeRecorded } from './pipeline'
 
 export interface RecordingDeps {
   db: Db
@@ -68,6 +69,8 @@ export async function addRecording(deps: RecordingDeps, channelId: number, outli
     if (copyKey) await upload.discard()
     const row = (await findRecording(deps.db, channelId, outlineId, id))!
     void afterUpload(deps, row)
+    // the recording is kept whatever happens to the take's stage: a failed move is only logged
+    await takeRecorded(deps.db, channelId, outlineId, user).catch((error: unknown) => deps.logger.warn({ err: error, outlineId }, 'the take could not be marked recorded'))
     return toRecording(row)
   } catch (error) {
     await Promise.all([upload.discard(), copyKey !== undefined && deps.storage.remove(copyKey)])

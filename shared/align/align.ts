@@ -31,6 +31,8 @@ const DEFAULT_MIN_CONFIDENCE = 0.4
 const REORDER_MARGIN = 0.1
 /** A line the in-order match found this well bounds the search for the lines before it. */
 const CLEAR_LINE = 0.6
+/** A later line whose in-order share beats this line's by this much also bounds this line's any-order search. */
+const CLEARLY_BETTER = 0.3
 /** Speaking rate assumed until the recording shows its own (about 160 words a minute: common practice for narration). */
 const DEFAULT_MS_PER_WORD = 375
 /** Matched words further apart in the heard words than their distance in the script explains (× this, plus a few) belong to different places. */
@@ -103,7 +105,8 @@ export function alignLines(lines: { lineId: number; text: string }[], words: Tim
 }
 
 /**
- * Where the search for a line said out of order stops: at the next line the in-order match found clearly, and
+ * Where the search for a line said out of order stops: at the next line the in-order match found clearly (or
+ * far better than this one, so a line's words aren't taken by a neighbour that shares many of them), and
  * never further past the line's own matches (or the previous line) than twice its length — which also keeps the
  * search short when many lines in a row could not be placed.
  */
@@ -111,7 +114,9 @@ function nextLineStart(firstLook: { group: WordPair[]; confidence: number }[], i
   const reach = Math.min(heardCount, (group.length > 0 ? group[group.length - 1].r : floor) + lineWords * 2 + STRETCH_SLACK)
   for (let k = index + 1; k < firstLook.length; k++) {
     const next = firstLook[k]
-    if (next.confidence >= CLEAR_LINE && next.group[0].r > floor) return Math.min(next.group[0].r, reach)
+    // a later line found clearly, or found in order far better than this one: its words are its own
+    const clear = next.confidence >= CLEAR_LINE || next.confidence >= firstLook[index].confidence + CLEARLY_BETTER
+    if (clear && next.group.length > 0 && next.group[0].r > floor) return Math.min(next.group[0].r, reach)
   }
   return reach
 }

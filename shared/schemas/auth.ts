@@ -17,7 +17,7 @@ export const signInSchema = z.object({
 })
 export type SignInInput = z.infer<typeof signInSchema>
 
-const userSchema = z.object({
+export const userSchema = z.object({
   id: z.number().int(),
   email: z.string(),
   name: z.string(),

@@ -12,6 +12,7 @@
  *   PATCH  /outlines/:outlineId               outline.edit    body OutlineSave → OutlineSummary; stale version → 409 StaleBody (whole record)
  *   GET    /outlines/:outlineId/cue-sheet.pdf outline.read    ?thumbnails=1 → the printable cue sheet (PDF)
  *   POST   /outlines/:outlineId/duplicate     outline.create  → OutlineRecord (201)
+ *   POST   /outlines/:outlineId/refresh       outline.create  body OutlineRefresh → OutlineRefreshed: the path found again on the puzzle as it is now
  *   DELETE /outlines/:outlineId               outline.create  → 204
  */
 import { z } from 'zod'
@@ -43,6 +44,8 @@ export const puzzleSummarySchema = z.object({
   author: z.string(),
   check: puzzleCheckSchema,
   outlineCount: z.int(),
+  /** takes solved on an earlier version of the grid: they no longer show the puzzle as it is */
+  staleOutlineCount: z.int(),
   version: z.int(),
   updatedAt: z.string(),
 })
@@ -69,6 +72,14 @@ export const outlineCreateSchema = z.object({
 })
 export type OutlineCreate = z.infer<typeof outlineCreateSchema>
 
+const countSchema = z.int().min(0)
+
+/** What changed in the puzzle's grid since a take was made from it (shared/takes/puzzle-changes). */
+const puzzleChangesSchema = z.object({
+  givens: z.object({ added: countSchema, removed: countSchema, changed: countSchema }),
+  thermometers: z.object({ added: countSchema, removed: countSchema }),
+})
+
 export const outlineSummarySchema = z.object({
   id: z.int(),
   puzzleId: z.int(),
@@ -77,6 +88,15 @@ export const outlineSummarySchema = z.object({
   stepCount: z.int(),
   totalMs: z.int(),
   version: z.int(),
+  /** the puzzle version the take was solved on */
+  puzzleVersion: z.int(),
+  /**
+   * On reads (the list and the take): how the puzzle's grid differs from the one the take was solved on, null
+   * when it doesn't (the take is current). A save's answer leaves it out: a save doesn't change it.
+   */
+  puzzleChanges: puzzleChangesSchema.nullable().optional(),
+  /** who saved last (null once they are gone), so a person shown a newer copy knows whose it is */
+  savedBy: z.object({ id: z.int(), name: z.string() }).nullable(),
   updatedAt: z.string(),
 })
 export type OutlineSummary = z.infer<typeof outlineSummarySchema>
@@ -95,6 +115,19 @@ export const outlineSaveSchema = z.object({
   script: outlineScriptSchema,
 })
 export type OutlineSave = z.infer<typeof outlineSaveSchema>
+
+/** "Find the path again": the version read, so a refresh never overwrites a save it didn't see. */
+export const outlineRefreshSchema = z.object({ version: z.int().min(1) })
+export type OutlineRefresh = z.infer<typeof outlineRefreshSchema>
+
+export const outlineRefreshedSchema = z.object({
+  take: outlineRecordSchema,
+  /** lines whose words, hiding or chapter title carried over to the fresh path */
+  kept: countSchema,
+  /** the words of edited lines whose steps the fresh path no longer has, so a person can reuse them */
+  lost: z.array(z.string()),
+})
+export type OutlineRefreshed = z.infer<typeof outlineRefreshedSchema>
 
 export const cueSheetQuerySchema = z.object({
   /** draw the grid before each line beside it */

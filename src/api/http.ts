@@ -48,6 +48,8 @@ export interface RequestOptions {
   /** Send the bearer token (default true). Sign-in turns it off. */
   auth?: boolean
   signal?: AbortSignal
+  /** a tag from an earlier answer: an unchanged resource answers 304 (see `http.getIfChanged`) */
+  ifNoneMatch?: string
 }
 
 type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE'
@@ -70,6 +72,7 @@ async function send(method: Method, path: string, body: unknown, options: Reques
   if (body !== undefined) headers['Content-Type'] = 'application/json'
   const token = options.auth === false ? null : auth.getToken()
   if (token) headers.Authorization = `Bearer ${token}`
+  if (options.ifNoneMatch) headers['If-None-Match'] = options.ifNoneMatch
 
   let response: Response
   try {
@@ -78,13 +81,15 @@ async function send(method: Method, path: string, body: unknown, options: Reques
       headers,
       body: body === undefined ? undefined : JSON.stringify(body),
       signal: options.signal,
+      // asking with a tag of our own: the browser's cache must not answer in our place
+      ...(options.ifNoneMatch === undefined ? {} : { cache: 'no-store' as const }),
     })
   } catch (error) {
     // An abort is the caller's decision (e.g. a query that is no longer needed), not a failure to report.
     if (error instanceof DOMException && error.name === 'AbortError') throw error
     throw new ApiError(0, 'network-error', "Can't reach Gridcue. Check your connection and try again.")
   }
-  if (!response.ok) {
+  if (!response.ok && !(response.status === 304 && options.ifNoneMatch)) {
     if (response.status === 401 && token) auth.onUnauthorized()
     throw toApiError(response.status, await readJson(response))
   }
@@ -137,6 +142,19 @@ export const http = {
   put: <T>(path: string, body: unknown, parser: Parser<T>, options?: RequestOptions) => request('PUT', path, parser, body, options),
   patch: <T>(path: string, body: unknown, parser: Parser<T>, options?: RequestOptions) => request('PATCH', path, parser, body, options),
   delete: <T>(path: string, parser: Parser<T>, options?: RequestOptions) => request('DELETE', path, parser, undefined, options),
+  /**
+   * A resource only when it changed since the answer tagged `etag` (null: not asked before): null on 304,
+   * so polling an unchanged one costs a header, not a body to read and check.
+   */
+  getIfChanged: async <T>(path: string, parser: Parser<T>, etag: string | null, options?: RequestOptions): Promise<{ etag: string | null; data: T } | null> => {
+    const response = await send('GET', path, undefined, { ...options, ifNoneMatch: etag ?? '' })
+    if (response.status === 304) return null
+    try {
+      return { etag: response.headers.get('ETag'), data: parser.parse(await readJson(response)) }
+    } catch {
+      throw new ApiError(response.status, 'unexpected-response', 'The server sent an answer Gridcue does not understand.')
+    }
+  },
   /** A file the server makes (e.g. a PDF), fetched with the session's token. */
   getBlob: async (path: string, options?: RequestOptions): Promise<Blob> => (await send('GET', path, undefined, options)).blob(),
 }

@@ -1,6 +1,6 @@
 import { z } from 'zod'
-import { outlineRecordSchema, outlineSummarySchema } from '@shared/schemas/studio'
-import type { OutlineCreate, OutlineRecord, OutlineSave, OutlineSummary } from '@shared/schemas/studio'
+import { outlineRecordSchema, outlineRefreshedSchema, outlineSummarySchema } from '@shared/schemas/studio'
+import type { OutlineCreate, OutlineRecord, OutlineRefreshed, OutlineSave, OutlineSummary } from '@shared/schemas/studio'
 import type { PictureQuery } from '@shared/schemas/episode'
 import { http, noContent } from './http'
 import { withStaleCheck } from './stale'
@@ -17,6 +17,11 @@ export function getOutline(channelId: number, outlineId: number, signal?: AbortS
   return http.get(`${channelBase(channelId)}/outlines/${outlineId}`, outlineRecordSchema, { signal })
 }
 
+/** The take only when it changed since the answer tagged `etag` (null when unchanged), for noticing someone else's save. */
+export function getOutlineIfChanged(channelId: number, outlineId: number, etag: string | null): Promise<{ etag: string | null; data: OutlineRecord } | null> {
+  return http.getIfChanged(`${channelBase(channelId)}/outlines/${outlineId}`, outlineRecordSchema, etag)
+}
+
 /** Runs the engine on the saved puzzle and writes a first script; can take a few seconds on hard puzzles. */
 export function createOutline(channelId: number, puzzleId: number, body: OutlineCreate = {}): Promise<OutlineRecord> {
   return http.post(`${channelBase(channelId)}/puzzles/${puzzleId}/outlines`, body, outlineRecordSchema)
@@ -29,6 +34,18 @@ export function createOutline(channelId: number, puzzleId: number, body: Outline
 export function saveOutline(channelId: number, outlineId: number, body: OutlineSave): Promise<OutlineSummary> {
   return withStaleCheck(
     () => http.patch(`${channelBase(channelId)}/outlines/${outlineId}`, body, outlineSummarySchema),
+    outlineRecordSchema,
+    () => getOutline(channelId, outlineId),
+  )
+}
+
+/**
+ * Finds the path again on the puzzle as it is now, keeping the take's edited lines where their steps still
+ * happen; rejects with a StaleError when someone saved since `version`.
+ */
+export function refreshOutline(channelId: number, outlineId: number, version: number): Promise<OutlineRefreshed> {
+  return withStaleCheck(
+    () => http.post(`${channelBase(channelId)}/outlines/${outlineId}/refresh`, { version }, outlineRefreshedSchema),
     outlineRecordSchema,
     () => getOutline(channelId, outlineId),
   )

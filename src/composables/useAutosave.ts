@@ -5,6 +5,7 @@ import { z } from 'zod'
 import { outlineSchema, scriptOf } from '@shared/schemas/outline'
 import type { Outline } from '@shared/schemas/outline'
 import type { OutlineRecord, OutlineSummary } from '@shared/schemas/studio'
+import { mergeScripts, settleMerge, type ScriptMerge, type Side } from '@shared/takes/merge-scripts'
 import { DATABASE_UNAVAILABLE, isApiError, retryDelayMs } from '@/api/http'
 import { isStaleError } from '@/api/stale'
 import { useUnsavedChangesGuard } from '@/composables/useUnsavedChangesGuard'
@@ -38,6 +39,8 @@ export interface AutosaveOptions {
 export interface SaveConflict {
   mine: Outline
   theirs: OutlineRecord
+  /** both copies merged line by line; its conflicts are the lines and settings both people changed */
+  merge: ScriptMerge
 }
 
 /** What a browser keeps of unsaved edits, so a reload or a crash never loses them. */
@@ -110,7 +113,8 @@ export function useAutosave(options: AutosaveOptions) {
     }
     restoredFrom.value = local.savedAt
     if (local.baseVersion !== record.version) {
-      conflict.value = { mine: local.outline, theirs: record }
+      // the version these edits were made on is not at hand, so every difference is asked about
+      conflict.value = { mine: local.outline, theirs: record, merge: mergeScripts(null, local.outline, doc) }
       status.value = 'conflict'
     } else {
       status.value = 'unsaved'
@@ -192,9 +196,8 @@ export function useAutosave(options: AutosaveOptions) {
         landed(theirs, sending)
         return
       }
-      conflict.value = { mine: options.outline.value ?? theirs.outline, theirs }
-      status.value = 'conflict'
       lastError.value = null
+      mergeWith(theirs, options.outline.value ?? sending)
       return
     }
     const message = error instanceof Error ? error.message : 'The outline could not be saved.'
@@ -210,6 +213,53 @@ export function useAutosave(options: AutosaveOptions) {
     // the status line already says what an outage means; a server error's own words may tell more
     lastError.value = reason === 'server' ? message : null
     if (!disposed) schedule(retryDelayMs(failures++, { firstMs: retryMs, maxMs: maxRetryMs }))
+  }
+
+  /** Merges a newer copy into `mine` line by line: without asking when no line was changed on both sides, else as a conflict. */
+  function mergeWith(theirs: OutlineRecord, mine: Outline): void {
+    const merge = mergeScripts(baseline.value, mine, toRaw(theirs.outline))
+    if (merge.conflicts.length === 0) return takeMerged(theirs, merge.merged)
+    conflict.value = { mine, theirs, merge }
+    status.value = 'conflict'
+  }
+
+  /**
+   * A newer copy someone else saved, noticed while editing (not as the answer to a save): merged in at once,
+   * so the screen shows their changes within seconds. A save on its way meets it as a conflict of its own.
+   */
+  function receive(theirs: OutlineRecord): void {
+    const mine = options.outline.value
+    if (!mine || version.value === null || theirs.version <= version.value) return
+    if (status.value === 'saving' || status.value === 'conflict') return
+    mergeWith(theirs, mine)
+  }
+
+  /**
+   * Continues from the server's newer copy with `merged` in the editor: the other person's changes and
+   * this browser's together, saved over their version a moment later.
+   */
+  function takeMerged(theirs: OutlineRecord, merged: Outline): void {
+    version.value = theirs.version
+    baseline.value = toRaw(theirs.outline)
+    options.onSaved?.(theirs)
+    status.value = 'unsaved'
+    options.replace(merged)
+    if (sameData(scriptOf(merged), scriptOf(baseline.value))) {
+      // nothing of ours is left to add: what the server holds is what the editor shows
+      options.replace(baseline.value)
+      status.value = 'saved'
+      removeLocal()
+    } else schedule(delayMs)
+  }
+
+  /** Settles each line and setting both people changed as `choices` say (theirs where none is given), and saves the result. */
+  async function settle(choices: Record<string, Side>): Promise<void> {
+    const c = conflict.value
+    if (!c) return
+    conflict.value = null
+    restoredFrom.value = null
+    takeMerged(c.theirs, settleMerge(c.merge, choices))
+    await saveNow()
   }
 
   /** Saves this browser's outline over the server's newer version. */
@@ -308,7 +358,7 @@ export function useAutosave(options: AutosaveOptions) {
 
   return {
     status, label, version, conflict, restoredFrom, lastError,
-    start, saveNow, keepMine, takeTheirs, discardRestored, dismissRestored,
+    start, saveNow, keepMine, takeTheirs, settle, receive, discardRestored, dismissRestored,
   }
 }
 

@@ -3,6 +3,7 @@ import type { MaybeRefOrGetter, Ref } from 'vue'
 import type { OutlineRecord } from '@shared/schemas/studio'
 import { isApiError } from '@/api/http'
 import { useCreateOutline, useDuplicateOutline, useOutlineList, useRemoveOutline } from './useOutlineQueries'
+import { useTakeRefresh } from './useTakeRefresh'
 
 export interface PuzzleOutlinesOptions {
   channelId: MaybeRefOrGetter<number>
@@ -17,7 +18,7 @@ export interface PuzzleOutlinesOptions {
   onCreated: (outline: OutlineRecord) => unknown
 }
 
-/** A puzzle's outlines (its takes) and what can be done with them: find the path, duplicate, delete. */
+/** A puzzle's outlines (its takes) and what can be done with them: find the path (again, for a stale take), duplicate, delete. */
 export function usePuzzleOutlines({ channelId, puzzleId, canChange, check, savedPuzzleId, onCreated }: PuzzleOutlinesOptions) {
   const list = useOutlineList(channelId, puzzleId)
   const create = useCreateOutline(channelId)
@@ -27,6 +28,10 @@ export function usePuzzleOutlines({ channelId, puzzleId, canChange, check, saved
   const busyId = ref<number | null>(null)
   const problem = ref<string | null>(null)
   const finding = ref(false)
+  const takeRefresh = useTakeRefresh({
+    channelId,
+    version: (outlineId) => list.data.value?.find((o) => o.id === outlineId)?.version ?? null,
+  })
 
   const findBlockedReason = computed(() => {
     if (!toValue(canChange)) return 'Owners and presenters can find the path.'
@@ -71,7 +76,19 @@ export function usePuzzleOutlines({ channelId, puzzleId, canChange, check, saved
     }
   }
 
-  return { list, busyId, problem, finding, findBlockedReason, findPath, duplicate, remove }
+  return {
+    list,
+    busyId,
+    problem: computed(() => problem.value ?? takeRefresh.problem.value),
+    finding,
+    findBlockedReason,
+    findPath,
+    duplicate,
+    remove,
+    refresh: takeRefresh.refresh,
+    refreshingId: takeRefresh.busyId,
+    refreshOutcome: takeRefresh.outcome,
+  }
 }
 
 function withReason(failure: string, error: unknown): string {

@@ -21,7 +21,8 @@ declare module 'vue-router' {
 }
 
 /** Every route is named, and only with one of these. */
-type RouteName = 'sign-in' | 'home' | 'library' | 'channel-members' | 'puzzle' | 'studio' | 'align' | 'not-found'
+type RouteName = 'sign-in' | 'home' | 'library' | 'channel-members' | 'puzzle' | 'studio' | 'align' | 'board' | 'schedule' | 'audit' | 'prompter' | 'not-found'
+  | 'invitation' | 'reset-password' | 'reset-password-token' | 'account' | 'account-email'
 
 /** Why the guard sent someone to the home page instead of where they asked to go. */
 export type HomeNotice = 'forbidden' | 'access-unchecked'
@@ -67,6 +68,40 @@ export const routes: (RouteRecordRaw & { name: RouteName })[] = [
     props: (route) => ({ channelId: Number(route.params.channelId), outlineId: Number(route.params.outlineId) }),
     meta: { requiresAuth: true, access: 'recording.edit', wide: true },
   },
+  {
+    path: '/channels/:channelId(\\d+)/outlines/:outlineId(\\d+)/prompter',
+    name: 'prompter',
+    component: () => import('@/views/PrompterView.vue'),
+    props: (route) => ({ channelId: Number(route.params.channelId), outlineId: Number(route.params.outlineId) }),
+    meta: { requiresAuth: true, access: 'rehearsal.run', wide: true },
+  },
+  {
+    path: '/channels/:channelId(\\d+)/board',
+    name: 'board',
+    component: () => import('@/views/BoardView.vue'),
+    props: (route) => ({ channelId: Number(route.params.channelId) }),
+    meta: { requiresAuth: true, access: 'pipeline.read', wide: true },
+  },
+  {
+    path: '/channels/:channelId(\\d+)/schedule',
+    name: 'schedule',
+    component: () => import('@/views/ScheduleView.vue'),
+    props: (route) => ({ channelId: Number(route.params.channelId) }),
+    meta: { requiresAuth: true, access: 'pipeline.read' },
+  },
+  {
+    path: '/channels/:channelId(\\d+)/audit',
+    name: 'audit',
+    component: () => import('@/views/AuditView.vue'),
+    props: (route) => ({ channelId: Number(route.params.channelId) }),
+    meta: { requiresAuth: true, access: 'audit.read' },
+  },
+  // the pages mailed links open: the link's token is the access, so they are open to anyone
+  { path: '/invitations/:token', name: 'invitation', component: () => import('@/views/InvitationView.vue'), props: true },
+  { path: '/reset-password', name: 'reset-password', component: () => import('@/views/ResetRequestView.vue') },
+  { path: '/reset-password/:token', name: 'reset-password-token', component: () => import('@/views/ResetPasswordView.vue'), props: true },
+  { path: '/account/email/:token', name: 'account-email', component: () => import('@/views/EmailConfirmView.vue'), props: true },
+  { path: '/account', name: 'account', component: () => import('@/views/AccountView.vue'), meta: { requiresAuth: true } },
   { path: '/:pathMatch(.*)*', name: 'not-found', component: () => import('@/views/NotFoundView.vue') },
 ]
 

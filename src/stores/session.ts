@@ -105,6 +105,13 @@ export const useSessionStore = defineStore('session', () => {
     return membershipsRequest
   }
 
+  /** Asks again after the person's channels changed (a channel made, joined or left). */
+  function reloadMemberships(): Promise<Membership[]> {
+    memberships.value = null
+    membershipsRequest = null
+    return loadMemberships()
+  }
+
   function roleIn(channelId: number): Role | null {
     return memberships.value?.find((m) => m.channelId === channelId)?.role ?? null
   }
@@ -135,7 +142,8 @@ export const useSessionStore = defineStore('session', () => {
   return {
     token, expiresAt, user, memberships, endReason,
     isSignedIn,
-    signIn, signOut, expire, checkExpiry, loadMemberships, roleIn, can,
+    // start: a fresh token the server handed out elsewhere (sign-up, reset, password change) is kept like a sign-in's
+    start, signIn, signOut, expire, checkExpiry, loadMemberships, reloadMemberships, roleIn, can,
   }
 })
 

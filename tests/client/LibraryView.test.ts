@@ -9,8 +9,8 @@ import { membership, saveSession, sessionFixture } from './support'
 
 const channel = { id: 1, name: 'Slow Thermos', slug: 'slow-thermos', description: '', role: 'presenter', memberCount: 3 }
 const puzzles = [
-  { id: 42, channelId: 1, title: 'Morning climb', author: 'Rosa Ilves', check: 'unique', outlineCount: 2, version: 3, updatedAt: '2025-05-01T10:00:00.000Z' },
-  { id: 43, channelId: 1, title: 'Half-built', author: '', check: 'multiple-solutions', outlineCount: 0, version: 1, updatedAt: '2025-05-02T10:00:00.000Z' },
+  { id: 42, channelId: 1, title: 'Morning climb', author: 'Rosa Ilves', check: 'unique', outlineCount: 2, staleOutlineCount: 1, version: 3, updatedAt: '2025-05-01T10:00:00.000Z' },
+  { id: 43, channelId: 1, title: 'Half-built', author: '', check: 'multiple-solutions', outlineCount: 0, staleOutlineCount: 0, version: 1, updatedAt: '2025-05-02T10:00:00.000Z' },
 ]
 
 function episode(id: number, title: string, state: EpisodeSummary['state'], publishAt: string): EpisodeSummary {
@@ -57,6 +57,15 @@ describe('LibraryView', { timeout: 20_000 }, () => {
     expect(climb).toHaveTextContent('Unique solution')
     expect(within(table).getByRole('row', { name: /Half-built/ })).toHaveTextContent('Several solutions')
     expect(screen.getByRole('link', { name: 'New puzzle' })).toHaveAttribute('href', '/channels/1/puzzles/new')
+  })
+
+  it('should flag the takes made before their puzzle changed', async () => {
+    answerAs('presenter')
+    await renderAt(App, '/channels/1')
+
+    const table = await screen.findByRole('table', { name: 'Puzzles' })
+    expect(within(table).getByRole('row', { name: /Morning climb/ })).toHaveTextContent('1 made before a change')
+    expect(within(table).getByRole('row', { name: /Half-built/ })).not.toHaveTextContent('made before a change')
   })
 
   it('should list every episode with its state, visibility and a plain link to its page for the studio team', async () => {

@@ -32,6 +32,7 @@ function recordFixture(overrides: Partial<PuzzleRecord> = {}): PuzzleRecord {
     author: 'Rosa Ilves',
     check: 'unique',
     outlineCount: 0,
+    staleOutlineCount: 0,
     version: 3,
     updatedAt: '2025-05-01T10:00:00.000Z',
     givens: UNIQUE,
@@ -44,7 +45,7 @@ function recordFixture(overrides: Partial<PuzzleRecord> = {}): PuzzleRecord {
   }
 }
 
-const takeOne: OutlineSummary = { id: 9, puzzleId: 42, name: 'Take 1', status: 'solved', stepCount: 61, totalMs: 754_000, version: 2, updatedAt: '2025-05-01T10:00:00.000Z' }
+const takeOne: OutlineSummary = { id: 9, puzzleId: 42, name: 'Take 1', status: 'solved', stepCount: 61, totalMs: 754_000, version: 2, puzzleVersion: 1, puzzleChanges: null, savedBy: null, updatedAt: '2025-05-01T10:00:00.000Z' }
 
 /** The signed-in user's answer from the API, with a role in channel 1. */
 function signedInAs(role: Membership['role']) {
@@ -363,6 +364,38 @@ describe('PuzzleView', () => {
     expect(sent[0]).toBe('POST /api/channels/1/outlines/9/duplicate')
   })
 
+  it('should flag a take made before the grid changed, say what changed, and find its path again keeping edited lines', async () => {
+    const staleTake: OutlineSummary = { ...takeOne, puzzleVersion: 2, puzzleChanges: { givens: { added: 1, removed: 0, changed: 0 }, thermometers: { added: 0, removed: 1 } } }
+    const bodies: unknown[] = []
+    api.use(
+      ...existingPuzzle(recordFixture({ outlineCount: 1, staleOutlineCount: 1 }), [staleTake]),
+      http.post(apiPath('/channels/1/outlines/9/refresh'), async ({ request }) => {
+        bodies.push(await request.json())
+        const take = recordFor(outlineFor('PE01'), { id: 9, puzzleId: 42, version: 3, puzzleVersion: 3 })
+        return HttpResponse.json({ take, kept: 2, lost: ['This one is a given now.'] })
+      }),
+    )
+    const { user } = await open('/channels/1/puzzles/42')
+
+    expect(screen.getByText('Puzzle changed')).toBeVisible()
+    expect(screen.getByText(/Made before 1 given added and 1 thermometer removed\./)).toBeVisible()
+    await user.click(screen.getByRole('button', { name: 'Find the path again for Take 1' }))
+    await settle()
+
+    // the version the list read, so a save it didn't see is never overwritten
+    expect(bodies).toEqual([{ version: takeOne.version }])
+    expect(screen.getByText(/^Path found again/)).toHaveTextContent('Path found again: 2 edited lines kept, 1 no longer fit a step: “This one is a given now.”.')
+  })
+
+  it('should not offer to find the path again to an editor, who cannot make takes', async () => {
+    const staleTake: OutlineSummary = { ...takeOne, puzzleChanges: { givens: { added: 0, removed: 0, changed: 1 }, thermometers: { added: 0, removed: 0 } } }
+    api.use(...existingPuzzle(recordFixture({ outlineCount: 1, staleOutlineCount: 1 }), [staleTake]))
+    await open('/channels/1/puzzles/42', 'editor')
+
+    expect(screen.getByText(/Made before 1 given changed\./)).toBeVisible()
+    expect(screen.queryByRole('button', { name: /Find the path again/ })).toBeNull()
+  })
+
   it('should ask once more before deleting a take, and send the delete only when confirmed', async () => {
     api.use(
       ...existingPuzzle(recordFixture({ outlineCount: 1 }), [takeOne]),
@@ -374,6 +407,11 @@ describe('PuzzleView', () => {
     await user.click(screen.getByRole('button', { name: 'Delete Take 1…' }))
     expect(screen.getByText('Delete “Take 1” and its edits?')).toBeVisible()
     await user.click(screen.getByRole('button', { name: 'Keep' }))
+    expect(sent).toEqual([])
+
+    await user.click(screen.getByRole('button', { name: 'Delete Take 1…' }))
+    await user.keyboard('{Escape}')
+    expect(screen.queryByText('Delete “Take 1” and its edits?')).toBeNull()
     expect(sent).toEqual([])
 
     await user.click(screen.getByRole('button', { name: 'Delete Take 1…' }))
@@ -541,5 +579,21 @@ describe('PuzzleView', () => {
 
     expect(screen.getByRole('heading', { level: 1 })).toHaveTextContent('Puzzle not available')
     expect(screen.getByText("This puzzle doesn't exist in this channel, or you can't open it.")).toBeVisible()
+  })
+
+  it('should leave a missing puzzle for the Library without asking about unsaved changes', async () => {
+    const notFound = () => HttpResponse.json({ code: 'not-found', message: 'Not found' }, { status: 404 })
+    api.use(http.get(apiPath('/channels/1/puzzles/999'), notFound), http.get(apiPath('/channels/1/puzzles/999/outlines'), notFound))
+    const confirm = answerConfirm(false)
+    const { router } = await open('/channels/1/puzzles/999')
+    expect(screen.getByRole('heading', { level: 1 })).toHaveTextContent('Puzzle not available')
+
+    const leaving = new Event('beforeunload', { cancelable: true })
+    window.dispatchEvent(leaving)
+    expect(leaving.defaultPrevented).toBe(false)
+    await router.push({ name: 'library', params: { channelId: 1 } })
+    await settle()
+    expect(confirm).not.toHaveBeenCalled()
+    expect(router.currentRoute.value.name).toBe('library')
   })
 })

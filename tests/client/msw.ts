@@ -7,7 +7,8 @@ import { HttpResponse, http } from 'msw'
 import { afterAll, afterEach, beforeAll } from 'vitest'
 import { config } from '@/config'
 
-export const api = setupServer()
+// the header's bell asks for the person's notifications on every signed-in screen: none, unless a test says otherwise
+export const api = setupServer(http.get(apiPath('/notifications'), () => HttpResponse.json({ unread: 0, items: [] })))
 
 /** An API path as the client requests it, e.g. `apiPath('/channels/3/puzzles')`. */
 export function apiPath(path: string): string {

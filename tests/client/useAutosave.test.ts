@@ -38,6 +38,8 @@ const savedSummary = (version: number): OutlineSummary => ({
   stepCount: 10,
   totalMs: 0,
   version,
+  puzzleVersion: 1,
+  savedBy: { id: 7, name: 'Priya Castellanos' },
   updatedAt: '2025-03-01T10:05:00.000Z',
 })
 
@@ -69,6 +71,8 @@ function renderAutosave(record: OutlineRecord, tuning: Pick<AutosaveOptions, 're
             visible: autosave.conflict.value !== null,
             mine: autosave.conflict.value?.mine ?? null,
             theirs: autosave.conflict.value?.theirs ?? null,
+            merge: autosave.conflict.value?.merge ?? null,
+            onSettle: autosave.settle,
             onKeepMine: () => void autosave.keepMine(),
             onTakeTheirs: autosave.takeTheirs,
           }),
@@ -429,13 +433,13 @@ describe('useAutosave', () => {
       expect(localCopy()).toBeNull()
     })
 
-    it('should still call it a conflict when the newer copy differs from what this browser sent', async () => {
+    it('should still call it a conflict when the newer copy changed the same line differently', async () => {
       const sent: SentSave[] = []
       api.use(
         http.patch(OUTLINE_URL, async ({ request }) => {
           sent.push((await request.json()) as SentSave)
           if (sent.length === 1) return HttpResponse.json({ code: 'database-unavailable', message: NOT_STORED }, { status: 503 })
-          const theirs = recordFor(retext(doc, 5, 'The editor rewrote this line.'), { version: 4 })
+          const theirs = recordFor(retext(doc, 3, 'The editor rewrote this line.'), { version: 4 })
           return HttpResponse.json({ code: 'stale', message: 'Someone saved first.', details: { current: theirs } }, { status: 409 })
         }),
       )
@@ -570,7 +574,7 @@ describe('useAutosave', () => {
 
     expect(status()).toHaveTextContent(/^Conflict$/)
     const dialog = screen.getByRole('dialog', { name: 'Someone else saved this outline' })
-    expect(dialog).toHaveTextContent(/a newer copy was saved \(version 4, saved .+\)/)
+    expect(dialog).toHaveTextContent(/While you were editing, Priya Castellanos saved .+ \(version 4\)/)
     const row = within(dialog).getByRole('row', { name: /^Line 6 / })
     const [mineCell, theirsCell, ...more] = within(row).getAllByRole('cell')
     expect(more).toHaveLength(0)
@@ -588,6 +592,98 @@ describe('useAutosave', () => {
     expect(status()).toHaveTextContent(/^Saved$/)
     expect(autosave.version.value).toBe(5)
     expect(localCopy()).toBeNull()
+  })
+
+  it('should merge a newer copy that changed other lines without asking, and save both sets of changes over it', async () => {
+    const theirs = recordFor(retext(doc, 5, 'The editor rewrote this line.'), { version: 4 })
+    const sent: SentSave[] = []
+    api.use(
+      http.patch(OUTLINE_URL, async ({ request }) => {
+        const body = (await request.json()) as SentSave
+        sent.push(body)
+        if (body.version === 3) return HttpResponse.json({ code: 'stale', message: 'Someone saved first.', details: { current: theirs } }, { status: 409 })
+        return HttpResponse.json(savedSummary(body.version + 1))
+      }),
+    )
+    const { editor, autosave } = renderAutosave(recordFor(doc, { version: 3 }))
+    editor.apply({ op: 'editLineText', lineId: doc.lines[2].id, text: 'My words on another line.' })
+    await vi.advanceTimersByTimeAsync(1000)
+    await flushPromises()
+    expect(screen.queryByRole('dialog')).not.toBeInTheDocument()
+    await vi.advanceTimersByTimeAsync(1000)
+    await flushPromises()
+
+    expect(sent.map((b) => b.version)).toEqual([3, 4])
+    expect(sent[1].script.lines[2].text).toBe('My words on another line.')
+    expect(sent[1].script.lines[5].text).toBe('The editor rewrote this line.')
+    expect(editor.outline.value!.lines[5].text).toBe('The editor rewrote this line.')
+    expect(autosave.version.value).toBe(5)
+    expect(status()).toHaveTextContent(/^Saved$/)
+  })
+
+  it('should ask only about the line both changed, name who saved it, and save the choices with the rest merged', async () => {
+    const twoMinutesAgo = new Date(Date.now() - 120_000).toISOString()
+    const theirs = recordFor(retext(retext(doc, 5, 'The editor rewrote this line.'), 6, 'The editor also changed this one.'), { version: 4, updatedAt: twoMinutesAgo })
+    const sent: SentSave[] = []
+    api.use(
+      http.patch(OUTLINE_URL, async ({ request }) => {
+        const body = (await request.json()) as SentSave
+        sent.push(body)
+        if (body.version === 3) return HttpResponse.json({ code: 'stale', message: 'Someone saved first.', details: { current: theirs } }, { status: 409 })
+        return HttpResponse.json(savedSummary(body.version + 1))
+      }),
+    )
+    const { editor } = renderAutosave(recordFor(doc, { version: 3 }))
+    editor.apply({ op: 'editLineText', lineId: doc.lines[5].id, text: 'My own take on this line.' })
+    editor.apply({ op: 'editLineText', lineId: doc.lines[2].id, text: 'Only I touched this one.' })
+    await vi.advanceTimersByTimeAsync(1000)
+    await flushPromises()
+
+    const dialog = screen.getByRole('dialog', { name: 'Someone else saved this outline' })
+    expect(dialog).toHaveTextContent('Priya Castellanos saved 2 minutes ago (version 4)')
+    const rows = within(dialog).getAllByRole('row').slice(1)
+    expect(rows).toHaveLength(1)
+    expect(rows[0]).toHaveAccessibleName(/^Line 6 /)
+    await user().click(within(dialog).getByRole('radio', { name: 'Line 6: keep yours' }))
+    await user().click(within(dialog).getByRole('button', { name: 'Save with these choices' }))
+    await flushPromises()
+
+    expect(sent).toHaveLength(2)
+    expect(sent[1].version).toBe(4)
+    expect(sent[1].script.lines.slice(2, 7).map((l) => l.text)).toEqual([
+      'Only I touched this one.',
+      doc.lines[3].text,
+      doc.lines[4].text,
+      'My own take on this line.',
+      'The editor also changed this one.',
+    ])
+    expect(status()).toHaveTextContent(/^Saved$/)
+  })
+
+  it('should merge in a newer copy noticed while editing, keeping the edits being made', async () => {
+    const sent = acceptSaves()
+    const { editor, autosave } = renderAutosave(recordFor(doc, { version: 3 }))
+    editor.apply({ op: 'editLineText', lineId: doc.lines[2].id, text: 'Typed just now.' })
+    autosave.receive(recordFor(retext(doc, 5, 'Saved by the editor meanwhile.'), { version: 4 }))
+    await vi.advanceTimersByTimeAsync(1000)
+    await flushPromises()
+
+    expect(editor.outline.value!.lines[5].text).toBe('Saved by the editor meanwhile.')
+    expect(editor.outline.value!.lines[2].text).toBe('Typed just now.')
+    expect(sent.map((b) => b.version)).toEqual([4])
+    expect(status()).toHaveTextContent(/^Saved$/)
+  })
+
+  it('should simply show a newer copy when nothing here is unsaved', async () => {
+    const sent = acceptSaves()
+    const { editor, autosave } = renderAutosave(recordFor(doc, { version: 3 }))
+    autosave.receive(recordFor(retext(doc, 5, 'Saved by the editor meanwhile.'), { version: 4 }))
+    await vi.advanceTimersByTimeAsync(2000)
+    await flushPromises()
+    expect(editor.outline.value!.lines[5].text).toBe('Saved by the editor meanwhile.')
+    expect(autosave.version.value).toBe(4)
+    expect(sent).toEqual([])
+    expect(status()).toHaveTextContent(/^Saved$/)
   })
 
   it("should take the server's version when asked, dropping the local copy", async () => {

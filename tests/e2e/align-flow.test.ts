@@ -119,8 +119,10 @@ describe('editor: a recording uploaded, stamped by key and aligned from captions
     expect(chapters).toBe(toWebVttChapters(saved))
     const cueStarts = [...chapters.matchAll(/^(\S+) --> /gm)].map(([, start]) => start)
     // the first chapter opens the video at 0:00 (common practice for chapter lists); the others start where their lines were aligned
-    const alignedStarts = saved.chapters.map((c, i) => vttTimestamp(i === 0 ? 0 : saved.lines.find((l) => l.id === c.lineId)!.alignedStartMs!))
-    expect(cueStarts).toEqual(alignedStarts)
+    // (chapters 1–5 open on the stamped and captioned lines; any later chapter keeps its estimate, counted on from them)
+    const alignedStarts = saved.chapters.slice(0, 5).map((c, i) => vttTimestamp(i === 0 ? 0 : saved.lines.find((l) => l.id === c.lineId)!.alignedStartMs!))
+    expect(cueStarts.slice(0, 5)).toEqual(alignedStarts)
+    expect([...cueStarts].sort()).toEqual(cueStarts)
     await page.close()
   })
 })

@@ -128,6 +128,9 @@ describe('GET /api/channels/:channelId/puzzles/:puzzleId/outlines', () => {
       stepCount: first.stepCount,
       totalMs: first.totalMs,
       version: expect.any(Number),
+      puzzleVersion: thermo.version,
+      puzzleChanges: null,
+      savedBy: { id: expect.any(Number), name: expect.any(String) },
       updatedAt: expect.any(String),
     })
     const ids = res.body.map((o: { id: number }) => o.id)

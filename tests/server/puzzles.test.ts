@@ -18,6 +18,7 @@ describe('POST /api/channels/:channelId/puzzles', () => {
       author: '',
       check: 'unique',
       outlineCount: 0,
+      staleOutlineCount: 0,
       version: 1,
       updatedAt: expect.any(String),
       givens: fixture('PE01').givens,
@@ -118,6 +119,7 @@ describe('GET /api/channels/:channelId/puzzles', () => {
       author: '',
       check: 'unique',
       outlineCount: 0,
+      staleOutlineCount: 0,
       version: 1,
       updatedAt: newer.updatedAt,
     })

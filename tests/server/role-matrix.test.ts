@@ -13,6 +13,12 @@ import { mediaTokens } from '../../server/auth/media-tokens'
 import { issueToken } from '../../server/auth/tokens'
 import { insertRun } from '../../server/db/alignment-runs'
 import { insertRecording } from '../../server/db/recordings'
+import { newLinkToken, fromNow, HOUR_MS } from '../../server/auth/link-tokens'
+import { replaceEmailChange } from '../../server/db/email-changes'
+import { upsertOpenInvitation } from '../../server/db/invitations'
+import { replacePasswordReset } from '../../server/db/password-resets'
+import { STRONG_PASSWORD } from '../helpers/mail'
+import { insertRehearsal } from '../../server/db/rehearsals'
 import type { Access, EndpointInfo } from '../../server/routes/endpoint'
 import { DEMO_PASSWORD } from '../../seeds/01_demo_channel'
 import { rolesFor } from '../../shared/permissions'
@@ -29,6 +35,10 @@ let otherOwner: { id: number; channelId: number }
 let played: number
 let spare: number
 let alignment: { recordingId: number; runId: number }
+// a take still at the pipeline's first stage (the shared one is recorded and published in prepare)
+let plannedTake: number
+let links: Awaited<ReturnType<typeof mailedLinks>>
+let rehearsalId: number
 const api = useApiSuite({
   prepare: async (suite) => {
     puzzle = await suite.createPuzzle(draftOf('GT13'))
@@ -36,9 +46,12 @@ const api = useApiSuite({
     if (res.status !== 201) throw new Error(`making an outline failed: ${res.status} ${JSON.stringify(res.body)}`)
     outline = res.body
     otherOwner = await ownerOfAnotherChannel(suite.db)
+    plannedTake = (await suite.as('owner').post(`/api/channels/${suite.channelId}/puzzles/${puzzle.id}/outlines`, { name: 'Planned take' })).body.id
     played = await uploadedRecording(suite, outline.id)
     spare = await uploadedRecording(suite, outline.id)
     alignment = await recordingWithRun(suite.db, outline.id)
+    links = await mailedLinks(suite)
+    rehearsalId = await insertRehearsal(suite.db, { outline_id: outline.id, presenter_id: null, name: 'Matrix run', lines: [], speech_ms: 0 })
     await publishedEpisode(suite, outline.id, played)
   },
 })
@@ -60,6 +73,24 @@ async function ownerOfAnotherChannel(db: typeof api.db): Promise<typeof otherOwn
   const [channel] = await db('channels').insert({ name: 'Lantern Grids', slug: 'lantern-grids' }).returning('id')
   await db('memberships').insert({ user_id: user!.id, channel_id: channel!.id, role: 'owner' })
   return { id: user!.id, channelId: channel!.id }
+}
+
+/**
+ * Links as the mails carry them (an invitation, a password reset, an address to confirm), each token known
+ * here; and a second owner, so the demo owner may leave the channel like any member.
+ */
+async function mailedLinks(suite: ApiSuite) {
+  const { db } = suite
+  const { password_hash } = (await db('users').where({ email: demoEmail('owner') }).first())!
+  const [coOwner] = await db('users').insert({ email: 'co-owner@gridcue.example', name: 'Ines Varga', password_hash }).returning('id')
+  await db('memberships').insert({ user_id: coOwner!.id, channel_id: suite.channelId, role: 'owner' })
+  const invitation = newLinkToken()
+  const { id: invitationId } = await upsertOpenInvitation(db, { channel_id: suite.channelId, email: 'matrix-invitee@gridcue.example', role: 'editor', token_hash: invitation.hash, invited_by: null, expires_at: fromNow(HOUR_MS) })
+  const reset = newLinkToken()
+  await replacePasswordReset(db, { user_id: suite.user('viewer').id, token_hash: reset.hash, expires_at: fromNow(HOUR_MS) })
+  const emailChange = newLinkToken()
+  await replaceEmailChange(db, { user_id: suite.user('viewer').id, new_email: 'matrix-new-address@gridcue.example', token_hash: emailChange.hash, expires_at: fromNow(HOUR_MS) })
+  return { invitationId, invitation: invitation.token, reset: reset.token, emailChange: emailChange.token }
 }
 
 /** A recording row of the outline (its file is never read here) with one queued alignment run. */
@@ -106,6 +137,29 @@ const ENDPOINTS: Record<string, Row> = {
   'GET /api/channels': { access: 'signed-in' },
   'GET /api/channels/:channelId': { access: 'channel.read' },
   'GET /api/channels/:channelId/members': { access: 'members.read' },
+  'POST /api/channels': { access: 'signed-in', body: () => ({ name: 'Matrix channel' }) },
+  'PATCH /api/channels/:channelId': { access: 'channel.manage', body: () => ({ name: 'Marigold Logic', description: 'Renamed in the matrix.' }) },
+  'PATCH /api/channels/:channelId/members/:userId': { access: 'members.manage', body: () => ({ role: 'editor' }), ids: () => ({ userId: api.user('presenter').id }) },
+  'DELETE /api/channels/:channelId/members/:userId': { access: 'members.manage', ids: () => ({ userId: api.user('viewer').id }) },
+  // every member may leave (a second owner is in the channel, so the demo owner may too)
+  'DELETE /api/channels/:channelId/membership': { access: 'channel.read' },
+  'GET /api/channels/:channelId/invitations': { access: 'members.manage' },
+  'POST /api/channels/:channelId/invitations': { access: 'members.manage', body: () => ({ email: 'matrix-second-invitee@gridcue.example', role: 'viewer' }) },
+  'DELETE /api/channels/:channelId/invitations/:invitationId': { access: 'members.manage', ids: () => ({ invitationId: links.invitationId }) },
+  // public: the link's token is the access (refusals of used, expired and unknown links: tests/server/team.test.ts)
+  'GET /api/invitations/:token': { access: 'public', ids: () => ({ token: links.invitation }) },
+  'POST /api/invitations/:token/sign-up': { access: 'public', body: () => ({ name: 'Matrix Invitee', password: STRONG_PASSWORD }), ids: () => ({ token: links.invitation }) },
+  'POST /api/invitations/:token/accept': { access: 'signed-in', ids: () => ({ token: links.invitation }) },
+  'GET /api/account': { access: 'signed-in' },
+  'PATCH /api/account': { access: 'signed-in', body: () => ({ name: 'Renamed Person' }) },
+  'POST /api/account/email': { access: 'signed-in', body: () => ({ email: 'matrix-moved@gridcue.example', password: DEMO_PASSWORD }) },
+  'POST /api/account/email/:token': { access: 'public', ids: () => ({ token: links.emailChange }) },
+  'PUT /api/account/password': { access: 'signed-in', body: () => ({ currentPassword: DEMO_PASSWORD, newPassword: STRONG_PASSWORD }) },
+  'POST /api/auth/password-reset': { access: 'public', body: () => ({ email: demoEmail('editor') }) },
+  'GET /api/auth/password-reset/:token': { access: 'public', ids: () => ({ token: links.reset }) },
+  'POST /api/auth/password-reset/:token': { access: 'public', body: () => ({ password: STRONG_PASSWORD }), ids: () => ({ token: links.reset }) },
+  // the local mail catcher's page: registered only outside production without SMTP_URL, as in tests
+  'GET /dev/mail': { access: 'public' },
   'GET /api/channels/:channelId/puzzles': { access: 'puzzle.read' },
   'POST /api/channels/:channelId/puzzles': { access: 'puzzle.edit', body: () => draftOf('PE01') },
   'GET /api/channels/:channelId/puzzles/:puzzleId': { access: 'puzzle.read' },
@@ -118,6 +172,7 @@ const ENDPOINTS: Record<string, Row> = {
   'GET /api/channels/:channelId/outlines/:outlineId/cue-sheet.pdf': { access: 'outline.read' },
   'GET /api/channels/:channelId/outlines/:outlineId/picture.png': { access: 'outline.read' },
   'POST /api/channels/:channelId/outlines/:outlineId/duplicate': { access: 'outline.create' },
+  'POST /api/channels/:channelId/outlines/:outlineId/refresh': { access: 'outline.create', body: () => ({ version: outline.version }) },
   'DELETE /api/channels/:channelId/outlines/:outlineId': { access: 'outline.create' },
   'GET /api/channels/:channelId/outlines/:outlineId/recordings': { access: 'recording.read' },
   'POST /api/channels/:channelId/outlines/:outlineId/recordings': { access: 'recording.edit', file: () => ({ name: 'another-take.wav', content: wavFile({ seconds: 0.2 }) }) },
@@ -133,6 +188,19 @@ const ENDPOINTS: Record<string, Row> = {
   'GET /api/channels/:channelId/outlines/:outlineId/recordings/:recordingId/alignments': { access: 'recording.read' },
   'GET /api/channels/:channelId/outlines/:outlineId/recordings/:recordingId/alignments/:runId': { access: 'recording.read' },
   'DELETE /api/channels/:channelId/outlines/:outlineId/recordings/:recordingId/alignments/:runId': { access: 'recording.edit' },
+  'GET /api/channels/:channelId/outlines/:outlineId/rehearsals': { access: 'rehearsal.read' },
+  'POST /api/channels/:channelId/outlines/:outlineId/rehearsals': { access: 'rehearsal.run', body: () => ({ name: 'Matrix rehearsal', lines: [{ lineId: outline.outline.lines[0]!.id, ms: 4000 }] }) },
+  'DELETE /api/channels/:channelId/outlines/:outlineId/rehearsals/:rehearsalId': { access: 'rehearsal.run', ids: () => ({ rehearsalId }) },
+  'POST /api/channels/:channelId/outlines/:outlineId/read-aloud': { access: 'rehearsal.run', body: () => ({ fromLineId: outline.outline.lines[0]!.id, toLineId: outline.outline.lines[0]!.id }) },
+  'GET /api/channels/:channelId/board': { access: 'pipeline.read' },
+  'PUT /api/channels/:channelId/outlines/:outlineId/stage': { access: 'pipeline.move', body: () => ({ stage: 'scripted' }), ids: () => ({ outlineId: plannedTake }) },
+  'PUT /api/channels/:channelId/outlines/:outlineId/plan': { access: 'pipeline.plan', body: () => ({ plannedOn: '2026-12-10' }) },
+  'PUT /api/channels/:channelId/cadence': { access: 'channel.manage', body: () => ({ cadenceDays: 4 }) },
+  'GET /api/channels/:channelId/audit': { access: 'audit.read' },
+  'GET /api/notifications': { access: 'signed-in' },
+  'POST /api/notifications/read': { access: 'signed-in', body: () => ({ all: true }) },
+  'GET /api/notification-choices': { access: 'signed-in' },
+  'PUT /api/notification-choices': { access: 'signed-in', body: () => [{ kind: 'take-ready', inApp: true, email: false }] },
   'GET /api/channels/:channelId/episodes': { access: 'episode.read' },
   'GET /api/channels/:channelId/outlines/:outlineId/episode': { access: 'outline.read' },
   'PUT /api/channels/:channelId/outlines/:outlineId/episode': {
