@@ -79,7 +79,7 @@ export const eitherWay: Technique = {
     for (const choice of choices(board)) {
       // three ways only when no two-way choice leads anywhere: they take longer to say
       if (bestRank && choice.sides.length > bestRank.sides) break
-      const found = conclusions(choice.sides.map(reach))
+      const found = conclusions(choice, reach)
       for (const c of found) {
         const rank: Rank = {
           sides: choice.sides.length,
@@ -172,14 +172,19 @@ const movesBySide = Array.from({ length: MAX_SIDES }, () => new Int16Array(KEYS)
 const lengthsBySide = Array.from({ length: MAX_SIDES }, () => new Uint8Array(KEYS))
 let stamp = 0
 
-/** What every side reaches; none when a side runs into a dead end. */
-function conclusions(sides: (Reached | null)[]): Conclusion[] {
-  if (sides.some((s) => !s || !s.keys.length)) return []
+/**
+ * What every side reaches; none when a side runs into a dead end. Sides are followed (through
+ * `reach`, which remembers them) only while the earlier ones still share something.
+ */
+function conclusions(choice: Choice, reach: (a: Assumption) => Reached | null): Conclusion[] {
   const current = ++stamp
-  const last = sides.length - 1
+  const last = choice.sides.length - 1
   const found: Conclusion[] = []
-  sides.forEach((side, s) => {
-    const { keys, moves, lengths } = side!
+  for (let s = 0; s <= last; s++) {
+    const side = reach(choice.sides[s])
+    if (!side) return []
+    const { keys, moves, lengths } = side
+    let shared = 0
     for (let i = 0; i < keys.length; i++) {
       const key = keys[i]
       if (s === 0) {
@@ -189,17 +194,19 @@ function conclusions(sides: (Reached | null)[]): Conclusion[] {
       reachedBy[key] = s + 1
       movesBySide[s][key] = moves[i]
       lengthsBySide[s][key] = lengths[i]
+      shared++
       if (s < last) continue
       const cellKey = key % 729
       found.push({
         place: key >= 729,
         cell: (cellKey / 9) | 0,
         digit: (cellKey % 9) + 1,
-        moves: sides.map((_, k) => movesBySide[k][key]),
-        lengths: sides.map((_, k) => lengthsBySide[k][key]),
+        moves: choice.sides.map((_, k) => movesBySide[k][key]),
+        lengths: choice.sides.map((_, k) => lengthsBySide[k][key]),
       })
     }
-  })
+    if (!shared) return []
+  }
   return found
 }
 
@@ -213,12 +220,12 @@ function toDeduction(trial: Trial, choice: Choice, found: Conclusion[]): Deducti
   // dropping a conclusion only shrinks another side's moves, so earlier sides stay within it.
   let kept = found
   for (let s = 0; s < sides.length; s++) {
-    trial.follows(sides[s].cell, sides[s].digit, ROUNDS)
+    trial.follows(sides[s].cell, sides[s].digit, ROUNDS, SIDE_MOVES)
     kept = keepWithin(trial, kept, s)
   }
   const chains: ChainLink[][] = []
   for (let s = 0; s < sides.length; s++) {
-    trial.follows(sides[s].cell, sides[s].digit, ROUNDS)
+    trial.follows(sides[s].cell, sides[s].digit, ROUNDS, SIDE_MOVES)
     trial.neededFor(kept.map((c) => c.moves[s]), Infinity)
     chains.push(trial.neededLinks())
   }

@@ -53,6 +53,9 @@ export class Trial {
   /** remover entries set by the current trial, so the next one resets only those */
   private readonly touched = new Int16Array(81 * 9)
   private touchedCount = 0
+  /** per house, the digits placed in it; `basePlacedIn` is the board's */
+  private readonly placedIn = new Uint16Array(27)
+  private readonly basePlacedIn = new Uint16Array(27)
   /** per house and digit, the cells (placed or open) still holding it; `baseCount` is the board's */
   private readonly count = new Uint8Array(27 * 9)
   private readonly baseCount = new Uint8Array(27 * 9)
@@ -106,8 +109,13 @@ export class Trial {
   static for(board: Board): Trial {
     const trial = (Trial.shared ??= new Trial())
     if (trial.board !== board) trial.setUp(board)
-    const { baseCount } = trial
+    const { baseCount, basePlacedIn } = trial
     baseCount.fill(0)
+    basePlacedIn.fill(0)
+    for (let c = 0; c < 81; c++) {
+      const d = board.digits[c]
+      if (d) for (const h of CELL_HOUSES[c]) basePlacedIn[h] |= 1 << (d - 1)
+    }
     for (let h = 0; h < 27; h++) {
       const cells = HOUSES[h]
       for (let i = 0; i < 9; i++) {
@@ -158,6 +166,7 @@ export class Trial {
     this.digits.set(board.digits)
     this.cand.set(board.cand)
     this.count.set(this.baseCount)
+    this.placedIn.set(this.basePlacedIn)
     for (let i = 0; i < this.touchedCount; i++) this.remover[this.touched[i]] = -1
     this.touchedCount = 0
     this.moveCount = 0
@@ -232,7 +241,8 @@ export class Trial {
         const bit = dirty & -dirty
         dirty ^= bit
         const d = lowestDigit(bit) - 1
-        if (count[h * 9 + d] !== 1) continue
+        // a digit placed in the house keeps its one place there: nothing to find
+        if (count[h * 9 + d] !== 1 || this.placedIn[h] & bit) continue
         const cells = HOUSES[h]
         let cell = -1
         for (let i = 0; i < 9; i++) if (cand[cells[i]] & bit) cell = cells[i]
@@ -373,6 +383,7 @@ export class Trial {
   }
 
   private remove(cell: Cell, mask: number, id: number): void {
+    if (this.beyondCap(id)) return
     const gone = this.cand[cell] & mask
     if (!gone) return
     const left = this.cand[cell] & ~gone
@@ -416,10 +427,23 @@ export class Trial {
     }
   }
 
+  /**
+   * With a short cap, a move needing more moves than the cap changes nothing: whatever follows from it
+   * would need more still, so no conclusion within the cap can use it.
+   */
+  private beyondCap(id: number): boolean {
+    return this.shortCap > 0 && this.shortCount[id] > this.shortCap
+  }
+
   private place(cell: Cell, digit: number, id: number): void {
+    if (this.beyondCap(id)) return
     const bit = 1 << (digit - 1)
     this.remove(cell, ALL_DIGITS & ~bit, id)
     this.digits[cell] = digit
+    const houses = CELL_HOUSES[cell]
+    this.placedIn[houses[0]] |= bit
+    this.placedIn[houses[1]] |= bit
+    this.placedIn[houses[2]] |= bit
     const peers = PEERS[cell]
     for (let i = 0; i < 20; i++) if (!this.digits[peers[i]]) this.remove(peers[i], bit, id)
   }
